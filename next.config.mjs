@@ -1,0 +1,6 @@
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  serverExternalPackages: ["knex", "mysql2", "pdfkit", "bcryptjs", "nodemailer", "smtp-server"],
+  poweredByHeader: false,
+};
+export default nextConfig;
