@@ -1,0 +1,91 @@
+import type { FieldIssue } from "@/lib/errors";
+import { FittingInputError } from "./errors";
+import type { CrossoverPoint, FitOptions } from "./fit-types";
+
+/** A validated point with its radius resolved; index is its position in the caller's array. */
+export interface ResolvedPoint {
+  index: number;
+  rowNumber?: number;
+  conductivity: number;
+  frequency: number;
+  radius: number;
+}
+
+export interface ResolvedOptions {
+  fitConductance: boolean;
+  fixedConductance: number;
+  initialCapacitance?: number;
+  weighting: "relative" | "absolute";
+  confidenceLevel: number;
+  curvePoints: number;
+}
+
+function positive(value: unknown): value is number {
+  return typeof value === "number" && Number.isFinite(value) && value > 0;
+}
+
+function describe(value: unknown): string {
+  return typeof value === "number" ? String(value) : JSON.stringify(value) ?? String(value);
+}
+
+/**
+ * Checks the options; throws FittingInputError naming each bad field.
+ * @example resolveOptions({ radius: 5e-6 }).fitConductance // true
+ */
+export function resolveOptions(options: FitOptions): ResolvedOptions {
+  const issues: FieldIssue[] = [];
+  const { initial = {} } = options;
+  if (options.radius !== undefined && !positive(options.radius))
+    issues.push({ path: "radius", message: `cell radius must be a positive number in metres; got ${describe(options.radius)}` });
+  if (initial.capacitance !== undefined && !positive(initial.capacitance))
+    issues.push({ path: "initial.capacitance", message: `starting membrane capacitance must be a positive number in F/m² (1 µF/cm² = 0.01 F/m²); got ${describe(initial.capacitance)}` });
+  const g = initial.conductance;
+  if (g !== undefined && !(typeof g === "number" && Number.isFinite(g) && g >= 0))
+    issues.push({ path: "initial.conductance", message: `membrane conductance must be a number ≥ 0 in S/m²; got ${describe(g)}` });
+  const level = options.confidenceLevel ?? 0.95;
+  if (!(typeof level === "number" && level > 0 && level < 1))
+    issues.push({ path: "confidenceLevel", message: `confidence level must lie strictly between 0 and 1 (e.g. 0.95); got ${describe(level)}` });
+  const curvePoints = options.curvePoints ?? 60;
+  if (!(Number.isInteger(curvePoints) && curvePoints >= 2 && curvePoints <= 10_000))
+    issues.push({ path: "curvePoints", message: `curve sample count must be a whole number from 2 to 10 000; got ${describe(curvePoints)}` });
+  const weighting = options.weighting ?? "relative";
+  if (weighting !== "relative" && weighting !== "absolute")
+    issues.push({ path: "weighting", message: `weighting must be "relative" or "absolute"; got ${describe(weighting)}` });
+  if (issues.length) throw new FittingInputError(issues);
+  return {
+    fitConductance: options.fitConductance ?? true,
+    fixedConductance: g ?? 0,
+    initialCapacitance: initial.capacitance,
+    weighting,
+    confidenceLevel: level,
+    curvePoints,
+  };
+}
+
+/**
+ * Checks every point and gives each its radius (own radius, else `radius`); throws
+ * FittingInputError listing every bad field.
+ * @example resolvePoints([{ conductivity: 0.01, crossoverFrequency: 4e4 }], 5e-6)[0].radius // 5e-6
+ */
+export function resolvePoints(points: readonly CrossoverPoint[], radius: number | undefined): ResolvedPoint[] {
+  if (!Array.isArray(points) || points.length === 0)
+    throw new FittingInputError([{ path: "points", message: "at least one crossover measurement is needed; got none" }]);
+  const issues: FieldIssue[] = [];
+  const out: ResolvedPoint[] = [];
+  points.forEach((p, index) => {
+    const at = `points[${index}]${p?.rowNumber ? ` (row ${p.rowNumber})` : ""}`;
+    if (!positive(p?.conductivity))
+      issues.push({ path: `${at}.conductivity`, message: `medium conductivity must be a positive number in S/m; got ${describe(p?.conductivity)}` });
+    if (!positive(p?.crossoverFrequency))
+      issues.push({ path: `${at}.crossoverFrequency`, message: `crossover frequency must be a positive number in Hz; got ${describe(p?.crossoverFrequency)}` });
+    const r = p?.radius ?? radius;
+    if (r === undefined)
+      issues.push({ path: `${at}.radius`, message: "no cell radius: give a radius column in the data or the radius option (m)" });
+    else if (!positive(r))
+      issues.push({ path: `${at}.radius`, message: `cell radius must be a positive number in metres; got ${describe(r)}` });
+    if (issues.length === 0)
+      out.push({ index, rowNumber: p.rowNumber, conductivity: p.conductivity, frequency: p.crossoverFrequency, radius: r as number });
+  });
+  if (issues.length) throw new FittingInputError(issues);
+  return out;
+}
