@@ -2,5 +2,6 @@
 const nextConfig = {
   serverExternalPackages: ["knex", "mysql2", "pdfkit", "bcryptjs", "nodemailer", "smtp-server"],
   poweredByHeader: false,
+  experimental: { authInterrupts: true },
 };
 export default nextConfig;

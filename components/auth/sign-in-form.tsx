@@ -1,0 +1,53 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { signIn } from "next-auth/react";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { signInSchema, type SignInInput } from "@/lib/users/schemas";
+
+/** E-mail and password form; a refusal is shown in words, never as a crash. */
+export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
+  const router = useRouter();
+  const [failure, setFailure] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    formState: { errors, isSubmitting },
+  } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
+
+  async function onSubmit(values: SignInInput) {
+    setFailure(null);
+    const result = await signIn("credentials", { ...values, redirect: false });
+    if (!result || result.error) {
+      setFailure("That e-mail and password do not match an active account. Check both, or ask your admin.");
+      return;
+    }
+    router.push(callbackUrl);
+    router.refresh();
+  }
+
+  return (
+    <form onSubmit={handleSubmit(onSubmit)} className="space-y-4" noValidate>
+      <label className="field">
+        <span>Email</span>
+        <input className="input" type="email" autoComplete="username" {...register("email")} aria-invalid={!!errors.email} />
+        {errors.email && <p className="field-error">{errors.email.message}</p>}
+      </label>
+      <label className="field">
+        <span>Password</span>
+        <input className="input" type="password" autoComplete="current-password" {...register("password")} aria-invalid={!!errors.password} />
+        {errors.password && <p className="field-error">{errors.password.message}</p>}
+      </label>
+      {failure && (
+        <p className="rounded-md border border-danger/30 bg-danger-light p-2 text-sm text-danger" data-testid="signin-error">
+          {failure}
+        </p>
+      )}
+      <button type="submit" className="btn w-full justify-center" disabled={isSubmitting}>
+        {isSubmitting ? "Signing in…" : "Sign in"}
+      </button>
+    </form>
+  );
+}

@@ -1,0 +1,19 @@
+import type { Knex } from "knex";
+import * as m001 from "./20261201_001_foundation";
+import * as m002 from "./20261201_002_api_tokens";
+
+/**
+ * Every migration, in order. Adding one: create `db/migrations/<date>_<nnn>_<name>.ts` exporting `up` and `down`,
+ * then list it here. A static list works the same under tsx, vitest and Next (no dynamic .ts imports).
+ */
+const MIGRATIONS: [string, Knex.Migration][] = [
+  ["20261201_001_foundation", m001],
+  ["20261201_002_api_tokens", m002],
+];
+
+/** Knex migration source backed by the list above. */
+export const migrationSource: Knex.MigrationSource<[string, Knex.Migration]> = {
+  getMigrations: async () => MIGRATIONS,
+  getMigrationName: ([name]) => name,
+  getMigration: async ([, migration]) => migration,
+};

@@ -1,0 +1,92 @@
+import type { Knex } from "knex";
+import { db } from "@/db/knex";
+
+/** One entry of the append-only audit trail, as the app sees it. */
+export interface AuditEvent {
+  id: number;
+  occurredAt: Date;
+  actorId: number | null;
+  actorEmail: string | null;
+  action: string;
+  entityType: string;
+  entityId: string;
+  summary: string;
+  before: unknown;
+  after: unknown;
+}
+
+/** What a caller supplies to record an event. */
+export interface AuditInput {
+  actor: { id: number; email: string } | null;
+  action: string;
+  entityType: string;
+  entityId: string | number;
+  summary: string;
+  before?: unknown;
+  after?: unknown;
+}
+
+/**
+ * Appends an audit event inside the caller's transaction (so it commits or rolls back with the change).
+ * @example await recordAudit(trx, { actor, action: "user.create", entityType: "user", entityId: 7, summary: "Created …" });
+ */
+export async function recordAudit(trx: Knex | Knex.Transaction, input: AuditInput): Promise<void> {
+  await trx("audit_events").insert({
+    actor_id: input.actor?.id ?? null,
+    actor_email: input.actor?.email ?? null,
+    action: input.action,
+    entity_type: input.entityType,
+    entity_id: String(input.entityId),
+    summary: input.summary,
+    before_json: input.before === undefined ? null : JSON.stringify(input.before),
+    after_json: input.after === undefined ? null : JSON.stringify(input.after),
+  });
+}
+
+/** Filters for the audit-trail page and its CSV export. */
+export interface AuditFilter {
+  entityType?: string;
+  entityId?: string;
+  actorEmail?: string;
+  action?: string;
+  from?: Date;
+  to?: Date;
+  limit?: number;
+  offset?: number;
+}
+
+/**
+ * Lists audit events, newest first.
+ * @example const rows = await listAuditEvents({ entityType: "protocol_version", limit: 50 });
+ */
+export async function listAuditEvents(filter: AuditFilter = {}): Promise<AuditEvent[]> {
+  const q = db("audit_events").orderBy("id", "desc");
+  if (filter.entityType) q.where("entity_type", filter.entityType);
+  if (filter.entityId) q.where("entity_id", filter.entityId);
+  if (filter.actorEmail) q.where("actor_email", "like", `%${filter.actorEmail}%`);
+  if (filter.action) q.where("action", "like", `${filter.action}%`);
+  if (filter.from) q.where("occurred_at", ">=", filter.from);
+  if (filter.to) q.where("occurred_at", "<=", filter.to);
+  q.limit(Math.min(filter.limit ?? 200, 10_000)).offset(filter.offset ?? 0);
+  return (await q).map(toAuditEvent);
+}
+
+function parseJson(value: unknown): unknown {
+  if (value === null || value === undefined) return null;
+  return typeof value === "string" ? JSON.parse(value) : value;
+}
+
+function toAuditEvent(row: Record<string, unknown>): AuditEvent {
+  return {
+    id: Number(row.id),
+    occurredAt: new Date(row.occurred_at as string),
+    actorId: row.actor_id === null ? null : Number(row.actor_id),
+    actorEmail: (row.actor_email as string | null) ?? null,
+    action: String(row.action),
+    entityType: String(row.entity_type),
+    entityId: String(row.entity_id),
+    summary: String(row.summary),
+    before: parseJson(row.before_json),
+    after: parseJson(row.after_json),
+  };
+}

@@ -1,0 +1,26 @@
+import { DomainError, InputError } from "@/lib/errors";
+
+/** What every server action returns to its form: success, or messages keyed by field. */
+export type ActionResult<T = undefined> =
+  | { ok: true; message?: string; data?: T }
+  | { ok: false; message: string; fieldErrors?: Record<string, string> };
+
+/**
+ * Runs an action body and turns domain errors into a form-friendly result (unknown errors are logged, and the user is
+ * told plainly that nothing was saved).
+ * @example return runAction(async () => { await createUser(actor, input); return { ok: true, message: "Created" }; });
+ */
+export async function runAction<T>(body: () => Promise<ActionResult<T>>): Promise<ActionResult<T>> {
+  try {
+    return await body();
+  } catch (err) {
+    if (err instanceof InputError) {
+      const fieldErrors: Record<string, string> = {};
+      for (const issue of err.issues) fieldErrors[issue.path || "form"] ??= issue.message;
+      return { ok: false, message: err.message, fieldErrors };
+    }
+    if (err instanceof DomainError) return { ok: false, message: err.message };
+    console.error("Unhandled action error", err);
+    return { ok: false, message: "Something went wrong on the server; nothing was saved. The error has been logged." };
+  }
+}

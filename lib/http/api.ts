@@ -1,0 +1,100 @@
+import { getServerSession } from "next-auth";
+import { authOptions } from "@/lib/auth/options";
+import { can, type Capability } from "@/lib/auth/roles";
+import { DomainError, ForbiddenError, InputError, RateLimitedError, TooLargeError, UnauthenticatedError } from "@/lib/errors";
+import { enforceRateLimit, findLiveToken, touchTokenLater } from "@/lib/tokens/auth";
+import { findUserById, type User } from "@/lib/users/repo";
+
+/** Largest JSON body the API reads (bytes). */
+export const MAX_JSON_BYTES = 2 * 1024 * 1024;
+
+/** Who called: the user, and the token when the call came with one. */
+export interface ApiCaller {
+  user: User;
+  tokenId: number | null;
+}
+
+/**
+ * Resolves the caller from `Authorization: Bearer …` or the session cookie; throws 401/403 errors.
+ * @example const caller = await authenticate(req, "api.compute");
+ */
+export async function authenticate(req: Request, capability: Capability): Promise<ApiCaller> {
+  const header = req.headers.get("authorization");
+  let caller: ApiCaller | null = null;
+  if (header) {
+    const match = /^Bearer\s+(\S+)$/i.exec(header);
+    if (!match) throw new UnauthenticatedError("Authorization header must be 'Bearer <token>'.");
+    const token = await findLiveToken(match[1]);
+    if (!token) throw new UnauthenticatedError("The API token is unknown or has been revoked.");
+    const user = await findUserById(token.userId);
+    if (!user || !user.active) throw new UnauthenticatedError("The account that owns this token is deactivated.");
+    await enforceRateLimit(token.id);
+    touchTokenLater(token.id);
+    caller = { user, tokenId: token.id };
+  } else {
+    const session = await getServerSession(authOptions);
+    const user = typeof session?.user?.id === "number" ? await findUserById(session.user.id) : null;
+    if (!user || !user.active) throw new UnauthenticatedError();
+    caller = { user, tokenId: null };
+  }
+  if (!can(caller.user.role, capability)) {
+    throw new ForbiddenError(`Your role (${caller.user.role}) may not use this endpoint.`);
+  }
+  return caller;
+}
+
+/**
+ * Reads a JSON body with a size cap; bad JSON → InputError, too large → TooLargeError.
+ * @example const body = await readJson(req);
+ */
+export async function readJson(req: Request, maxBytes = MAX_JSON_BYTES): Promise<unknown> {
+  const declared = Number(req.headers.get("content-length") ?? 0);
+  if (declared > maxBytes) throw new TooLargeError(`Request body is ${declared} bytes; the limit is ${maxBytes} bytes.`);
+  const text = await req.text();
+  if (text.length > maxBytes) throw new TooLargeError(`Request body is over the ${maxBytes}-byte limit.`);
+  if (!text.trim()) throw new InputError([{ path: "", message: "The request body is empty; send a JSON object." }]);
+  try {
+    return JSON.parse(text);
+  } catch (err) {
+    throw new InputError([{ path: "", message: `The body is not valid JSON: ${(err as Error).message}` }]);
+  }
+}
+
+/**
+ * Maps any error to a JSON response: domain errors keep their status and message, others become a logged 500.
+ * @example catch (err) { return errorResponse(err); }
+ */
+export function errorResponse(err: unknown): Response {
+  if (err instanceof DomainError) {
+    const body: Record<string, unknown> = { error: err.code, message: err.message };
+    if (err instanceof InputError) body.issues = err.issues;
+    const headers: Record<string, string> = {};
+    if (err instanceof RateLimitedError) headers["retry-after"] = String(err.retryAfterSeconds);
+    return Response.json(body, { status: err.status, headers });
+  }
+  const issues = (err as { issues?: unknown })?.issues;
+  if (err instanceof Error && err.name.endsWith("ValidationError") && Array.isArray(issues)) {
+    return Response.json({ error: "invalid_input", message: err.message, issues }, { status: 400 });
+  }
+  console.error("Unhandled API error", err);
+  return Response.json({ error: "internal", message: "Something went wrong on the server; it has been logged." }, { status: 500 });
+}
+
+/**
+ * Wraps a route handler: authenticate, run, map errors. The handler returns a plain object (sent as JSON) or a Response.
+ * @example export const POST = apiRoute("api.compute", async (req, caller) => ({ ok: true }));
+ */
+export function apiRoute<C>(
+  capability: Capability,
+  handler: (req: Request, caller: ApiCaller, ctx: C) => Promise<unknown>,
+): (req: Request, ctx: C) => Promise<Response> {
+  return async (req, ctx) => {
+    try {
+      const caller = await authenticate(req, capability);
+      const result = await handler(req, caller, ctx);
+      return result instanceof Response ? result : Response.json(result);
+    } catch (err) {
+      return errorResponse(err);
+    }
+  };
+}

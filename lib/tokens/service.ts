@@ -1,0 +1,80 @@
+import { createHash, randomBytes } from "node:crypto";
+import { z } from "zod";
+import { db } from "@/db/knex";
+import { recordAudit } from "@/lib/audit/repo";
+import { NotFoundError, RateLimitedError } from "@/lib/errors";
+import { parseOrThrow } from "@/lib/http/zod-issues";
+import type { User } from "@/lib/users/repo";
+import * as repo from "./repo";
+
+const TOKEN_PREFIX = "sw_";
+
+/** The settings form for a new token. */
+export const createTokenSchema = z.object({
+  label: z.string().trim().min(1, { error: "Label: 1 to 80 characters, e.g. 'analysis notebook'." }).max(80, {
+    error: "Label: 1 to 80 characters.",
+  }),
+});
+
+/** SHA-256 hex of a token secret. @example hashToken("sw_abc") // "9f…" */
+export function hashToken(secret: string): string {
+  return createHash("sha256").update(secret).digest("hex");
+}
+
+/**
+ * Creates a personal API token; the plain secret is returned once and only its hash is stored.
+ * @example const { secret } = await createToken(user, { label: "notebook" });
+ */
+export async function createToken(user: User, raw: unknown): Promise<{ id: number; secret: string }> {
+  const { label } = parseOrThrow(createTokenSchema, raw);
+  const secret = TOKEN_PREFIX + randomBytes(24).toString("base64url");
+  return db.transaction(async (trx) => {
+    const id = await repo.insertToken(trx, { userId: user.id, label, hash: hashToken(secret), prefix: secret.slice(0, 10) });
+    await recordAudit(trx, {
+      actor: user,
+      action: "token.create",
+      entityType: "api_token",
+      entityId: id,
+      summary: `Created API token "${label}"`,
+    });
+    return { id, secret };
+  });
+}
+
+/**
+ * Revokes one of the user's own tokens.
+ * @example await revokeToken(user, 3);
+ */
+export async function revokeToken(user: User, tokenId: number): Promise<void> {
+  await db.transaction(async (trx) => {
+    if (!(await repo.revokeTokenOfUser(trx, user.id, tokenId))) {
+      throw new NotFoundError(`No live API token with id ${tokenId} belongs to you.`);
+    }
+    await recordAudit(trx, { actor: user, action: "token.revoke", entityType: "api_token", entityId: tokenId, summary: "Revoked API token" });
+  });
+}
+
+/**
+ * Resolves a bearer secret to its live token, or null when unknown or revoked.
+ * @example const token = await findLiveToken("sw_…");
+ */
+export async function findLiveToken(secret: string): Promise<repo.ApiToken | null> {
+  const token = await repo.findTokenByHash(hashToken(secret));
+  return token && !token.revokedAt ? token : null;
+}
+
+/**
+ * Counts a request against the token's per-minute budget (RATE_LIMIT_PER_MINUTE, default 120) or throws 429.
+ * @example await enforceRateLimit(token.id);
+ */
+export async function enforceRateLimit(tokenId: number, now = Date.now()): Promise<void> {
+  const limit = Number(process.env.RATE_LIMIT_PER_MINUTE ?? 120);
+  const windowStart = Math.floor(now / 60_000) * 60_000;
+  const hits = await repo.countHit(tokenId, windowStart);
+  if (hits > limit) {
+    const retry = Math.ceil((windowStart + 60_000 - now) / 1000);
+    throw new RateLimitedError(`Rate limit: at most ${limit} requests per minute per token; retry in ${retry} s.`, retry);
+  }
+}
+
+export { listTokensOfUser } from "./repo";

@@ -1,0 +1,87 @@
+import type { Knex } from "knex";
+import { db } from "@/db/knex";
+import type { Role } from "@/lib/auth/roles";
+
+/** A user as the app sees it (never the password hash). */
+export interface User {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  active: boolean;
+  createdAt: Date;
+}
+
+interface UserRow {
+  id: number;
+  email: string;
+  name: string;
+  password_hash: string;
+  role: Role;
+  active: number | boolean;
+  created_at: Date;
+}
+
+function toUser(row: UserRow): User {
+  return {
+    id: Number(row.id),
+    email: row.email,
+    name: row.name,
+    role: row.role,
+    active: Boolean(row.active),
+    createdAt: new Date(row.created_at),
+  };
+}
+
+/** Finds a user by id. @example await findUserById(1) */
+export async function findUserById(id: number, conn: Knex = db): Promise<User | null> {
+  const row = await conn<UserRow>("users").where({ id }).first();
+  return row ? toUser(row) : null;
+}
+
+/** Finds a user and their password hash by e-mail (for sign-in and signature checks only). */
+export async function findCredentialsByEmail(email: string): Promise<{ user: User; passwordHash: string } | null> {
+  const row = await db<UserRow>("users").where({ email: email.toLowerCase() }).first();
+  return row ? { user: toUser(row), passwordHash: row.password_hash } : null;
+}
+
+/** Password hash of a user by id (for e-signature re-entry). */
+export async function findPasswordHash(id: number): Promise<string | null> {
+  const row = await db<UserRow>("users").select("password_hash").where({ id }).first();
+  return row?.password_hash ?? null;
+}
+
+/** Whether any user holds this e-mail. */
+export async function emailTaken(email: string, conn: Knex = db): Promise<boolean> {
+  return Boolean(await conn("users").where({ email: email.toLowerCase() }).first("id"));
+}
+
+/** Inserts a user row; returns its id. */
+export async function insertUser(
+  conn: Knex,
+  input: { email: string; name: string; role: Role; passwordHash: string },
+): Promise<number> {
+  const [id] = await conn("users").insert({
+    email: input.email.toLowerCase(),
+    name: input.name,
+    role: input.role,
+    password_hash: input.passwordHash,
+    active: true,
+  });
+  return Number(id);
+}
+
+/** Updates role and/or active flag. */
+export async function updateUser(conn: Knex, id: number, patch: { role?: Role; active?: boolean }): Promise<void> {
+  await conn("users").where({ id }).update({ ...patch, updated_at: conn.fn.now(3) });
+}
+
+/** All users, by name. */
+export async function listUsers(): Promise<User[]> {
+  return (await db<UserRow>("users").orderBy("name")).map(toUser);
+}
+
+/** Active users holding `role` (e.g. every supervisor, for sign-off mail). */
+export async function listActiveUsersByRole(role: Role, conn: Knex = db): Promise<User[]> {
+  return (await conn<UserRow>("users").where({ role, active: true }).orderBy("id")).map(toUser);
+}

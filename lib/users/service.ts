@@ -1,0 +1,115 @@
+import bcrypt from "bcryptjs";
+import { db } from "@/db/knex";
+import { recordAudit } from "@/lib/audit/repo";
+import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
+import { ConflictError, InputError, NotFoundError } from "@/lib/errors";
+import { parseOrThrow } from "@/lib/http/zod-issues";
+import { createUserSchema } from "./schemas";
+import * as repo from "./repo";
+import type { User } from "./repo";
+
+/** Who performs a change (for the audit trail). */
+export interface Actor {
+  id: number;
+  email: string;
+  role: Role;
+}
+
+const BCRYPT_COST = 10;
+
+/**
+ * Hashes a password with bcrypt (cost 10).
+ * @example const hash = await hashPassword("correct horse battery");
+ */
+export function hashPassword(password: string): Promise<string> {
+  return bcrypt.hash(password, BCRYPT_COST);
+}
+
+/**
+ * Creates a user; a duplicate e-mail is refused with an InputError on `email`.
+ * @example const user = await createUser(admin, { email: "a@lab.org", name: "A", role: "technician", password: "…12 chars…" });
+ */
+export async function createUser(actor: Actor | null, raw: unknown): Promise<User> {
+  const input = parseOrThrow(createUserSchema, raw);
+  const passwordHash = await hashPassword(input.password);
+  return db.transaction(async (trx) => {
+    if (await repo.emailTaken(input.email, trx)) {
+      throw new InputError([{ path: "email", message: `Email: ${input.email} already has an account.` }]);
+    }
+    const id = await repo.insertUser(trx, { ...input, passwordHash });
+    await recordAudit(trx, {
+      actor,
+      action: "user.create",
+      entityType: "user",
+      entityId: id,
+      summary: `Created ${input.email} as ${ROLE_LABELS[input.role]}`,
+      after: { email: input.email, name: input.name, role: input.role, active: true },
+    });
+    return (await repo.findUserById(id, trx))!;
+  });
+}
+
+/**
+ * Activates or deactivates an account (a deactivated user cannot sign in). An admin cannot deactivate themselves.
+ * @example await setUserActive(admin, 7, false);
+ */
+export async function setUserActive(actor: Actor, userId: number, active: boolean): Promise<User> {
+  if (actor.id === userId && !active) throw new ConflictError("You cannot deactivate your own account.");
+  return db.transaction(async (trx) => {
+    const before = await repo.findUserById(userId, trx);
+    if (!before) throw new NotFoundError(`No user with id ${userId}.`);
+    await repo.updateUser(trx, userId, { active });
+    await recordAudit(trx, {
+      actor,
+      action: active ? "user.activate" : "user.deactivate",
+      entityType: "user",
+      entityId: userId,
+      summary: `${active ? "Activated" : "Deactivated"} ${before.email}`,
+      before: { active: before.active },
+      after: { active },
+    });
+    return (await repo.findUserById(userId, trx))!;
+  });
+}
+
+/**
+ * Changes a user's role. An admin cannot change their own role (there must stay an admin).
+ * @example await setUserRole(admin, 7, "reviewer");
+ */
+export async function setUserRole(actor: Actor, userId: number, role: Role): Promise<User> {
+  if (actor.id === userId) throw new ConflictError("You cannot change your own role.");
+  return db.transaction(async (trx) => {
+    const before = await repo.findUserById(userId, trx);
+    if (!before) throw new NotFoundError(`No user with id ${userId}.`);
+    await repo.updateUser(trx, userId, { role });
+    await recordAudit(trx, {
+      actor,
+      action: "user.role",
+      entityType: "user",
+      entityId: userId,
+      summary: `${before.email}: ${ROLE_LABELS[before.role]} → ${ROLE_LABELS[role]}`,
+      before: { role: before.role },
+      after: { role },
+    });
+    return (await repo.findUserById(userId, trx))!;
+  });
+}
+
+/**
+ * Checks an e-mail and password; returns the user when they match an active account, else null.
+ * @example const user = await verifyCredentials("dana.dev@example.test", "…");
+ */
+export async function verifyCredentials(email: string, password: string): Promise<User | null> {
+  const found = await repo.findCredentialsByEmail(email);
+  if (!found || !found.user.active) return null;
+  return (await bcrypt.compare(password, found.passwordHash)) ? found.user : null;
+}
+
+/**
+ * Re-checks the password of a signed-in user (electronic signature).
+ * @example if (!(await verifyPassword(user.id, pw))) throw new InputError([...]);
+ */
+export async function verifyPassword(userId: number, password: string): Promise<boolean> {
+  const hash = await repo.findPasswordHash(userId);
+  return hash !== null && bcrypt.compare(password, hash);
+}

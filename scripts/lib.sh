@@ -1,0 +1,103 @@
+#!/usr/bin/env bash
+# Shared shell helpers for scripts/start.sh and scripts/test.sh.
+# Sourced, not executed. Every helper prints what it does and fails loudly.
+
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+export PATH="$ROOT/node_modules/.bin:$PATH"
+
+say() { printf '\033[1m[sievewright]\033[0m %s\n' "$*"; }
+die() { printf '\033[1;31m[sievewright] %s\033[0m\n' "$*" >&2; exit 1; }
+
+as_root() {
+  if [ "$(id -u)" = "0" ]; then "$@"; elif command -v sudo >/dev/null 2>&1; then sudo "$@"; else
+    die "Need root to run: $* (install sudo or run as root)"; fi
+}
+
+# ensure_apt PKG... — installs Debian packages that are not installed yet.
+ensure_apt() {
+  local missing=()
+  for p in "$@"; do dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p"); done
+  [ ${#missing[@]} -eq 0 ] && return 0
+  say "Installing Debian packages: ${missing[*]}"
+  as_root apt-get update -qq || die "apt-get update failed; check the network to Debian's mirrors."
+  as_root env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "${missing[@]}" >/dev/null \
+    || die "apt-get install ${missing[*]} failed."
+}
+
+# ensure_node_modules — npm ci when node_modules is missing or older than the lock file.
+ensure_node_modules() {
+  if [ ! -d "$ROOT/node_modules" ] || [ "$ROOT/package-lock.json" -nt "$ROOT/node_modules/.package-lock.json" ]; then
+    say "Installing npm dependencies (npm ci)"
+    (cd "$ROOT" && npm ci --no-audit --no-fund) || die "npm ci failed."
+  fi
+}
+
+# ensure_env — writes .env from .env.example with a generated secret if there is none.
+ensure_env() {
+  if [ ! -f "$ROOT/.env" ]; then
+    local secret; secret="$(node -e 'console.log(require("crypto").randomBytes(32).toString("base64url"))')"
+    sed "s|^NEXTAUTH_SECRET=.*|NEXTAUTH_SECRET=$secret|" "$ROOT/.env.example" > "$ROOT/.env"
+    say "Wrote .env from .env.example with a new NEXTAUTH_SECRET"
+  fi
+}
+
+# port_free PORT — true when nothing listens on 127.0.0.1:PORT.
+port_free() { ! (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
+
+# db_start DATADIR PORT — initialises (if needed) and starts a project-local MariaDB on loopback.
+# Sets DB_PID. Creates database $DB_NAME and user $DB_USER/$DB_PASSWORD.
+db_start() {
+  local dir="$1" port="$2"
+  mkdir -p "$dir/run"
+  command -v mariadbd >/dev/null 2>&1 || PATH="$PATH:/usr/sbin"
+  if [ -f "$dir/run/mariadb.pid" ] && kill -0 "$(cat "$dir/run/mariadb.pid")" 2>/dev/null; then
+    die "A MariaDB from $dir is already running (pid $(cat "$dir/run/mariadb.pid")). Stop it: kill $(cat "$dir/run/mariadb.pid")"
+  fi
+  port_free "$port" || die "Port $port is in use, so the project's MariaDB cannot start. Stop what uses it (ss -ltnp | grep :$port) or set DB_PORT in .env."
+  if [ ! -d "$dir/mariadb/mysql" ]; then
+    say "Initialising MariaDB data in $dir/mariadb"
+    mariadb-install-db --no-defaults --datadir="$dir/mariadb" --user="$(id -un)" \
+      --auth-root-authentication-method=socket --skip-test-db > "$dir/install-db.log" 2>&1 \
+      || die "mariadb-install-db failed; see $dir/install-db.log"
+  fi
+  mariadbd --no-defaults --user="$(id -un)" --datadir="$dir/mariadb" --bind-address=127.0.0.1 --port="$port" \
+    --socket="$dir/run/mariadb.sock" --pid-file="$dir/run/mariadb.pid" --log-error="$dir/mariadb.err" \
+    --skip-name-resolve --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci >/dev/null 2>&1 &
+  DB_PID=$!
+  local i=0
+  until mariadb-admin --no-defaults --socket="$dir/run/mariadb.sock" -uroot ping >/dev/null 2>&1; do
+    sleep 0.2; i=$((i+1))
+    if ! kill -0 "$DB_PID" 2>/dev/null || [ $i -gt 150 ]; then
+      tail -n 20 "$dir/mariadb.err" >&2 2>/dev/null
+      die "MariaDB did not start (log: $dir/mariadb.err). If the data folder is damaged, move $dir away and run again."
+    fi
+  done
+  db_sql "$dir" "CREATE DATABASE IF NOT EXISTS \`$DB_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+CREATE USER IF NOT EXISTS '$DB_USER'@'127.0.0.1' IDENTIFIED BY '$DB_PASSWORD';
+GRANT ALL PRIVILEGES ON \`$DB_NAME\`.* TO '$DB_USER'@'127.0.0.1';
+GRANT ALL PRIVILEGES ON \`${DB_NAME}_%\`.* TO '$DB_USER'@'127.0.0.1'; FLUSH PRIVILEGES;"
+  say "MariaDB listening on 127.0.0.1:$port (pid $DB_PID, data $dir/mariadb)"
+}
+
+# db_sql DATADIR SQL — runs SQL as the local root over the socket.
+db_sql() { mariadb --no-defaults --socket="$1/run/mariadb.sock" -uroot -e "$2"; }
+
+# stop_pid PID — TERM, wait up to 10 s, then KILL.
+stop_pid() {
+  local pid="$1" i=0
+  [ -n "$pid" ] || return 0
+  kill -0 "$pid" 2>/dev/null || return 0
+  kill -TERM "$pid" 2>/dev/null
+  while kill -0 "$pid" 2>/dev/null; do sleep 0.1; i=$((i+1)); [ $i -gt 100 ] && kill -KILL "$pid" 2>/dev/null; done
+  return 0
+}
+
+# load_env FILE — exports every KEY=VALUE in FILE that is not already set in the environment.
+load_env() {
+  [ -f "$1" ] || return 0
+  while IFS= read -r line || [ -n "$line" ]; do
+    case "$line" in ''|'#'*) continue ;; esac
+    local key="${line%%=*}" val="${line#*=}"
+    [ -z "${!key+x}" ] && export "$key=$val"
+  done < "$1"
+}

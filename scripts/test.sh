@@ -1,0 +1,72 @@
+#!/usr/bin/env bash
+# npm test — every tier against a throwaway MariaDB, ending with one line "N passed, N failed".
+set -uo pipefail
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+
+ensure_apt mariadb-server mariadb-client chromium poppler-utils
+ensure_node_modules
+
+RUN_DIR="$ROOT/.data/test-$$"
+REPORTS="$RUN_DIR/reports"; mkdir -p "$REPORTS"
+export NODE_ENV=test CI="${CI:-}" SIEVEWRIGHT_TEST=1
+export DB_HOST=127.0.0.1 DB_PORT="${TEST_DB_PORT:-3317}" DB_USER=sw_test DB_PASSWORD=sw-test-pass DB_NAME=sw_e2e
+export APP_PORT=3100 NEXTAUTH_URL=http://127.0.0.1:3100 NEXTAUTH_SECRET=test-secret-not-for-production
+export APP_BASE_URL=http://127.0.0.1:3100
+export SMTP_HOST=127.0.0.1 SMTP_PORT="${TEST_SMTP_PORT:-2626}" SMTP_FROM="Sievewright <no-reply@sievewright.test>"
+export MAIL_SINK_DIR="$RUN_DIR/mail" OUTBOX_POLL_MS=300 UPLOAD_DIR="$RUN_DIR/uploads" RATE_LIMIT_PER_MINUTE=100000
+
+PIDS=()
+cleanup() {
+  trap - INT TERM EXIT
+  for ((i=${#PIDS[@]}-1; i>=0; i--)); do stop_pid "${PIDS[$i]}"; done
+  rm -rf "$RUN_DIR"
+}
+trap cleanup INT TERM EXIT
+
+db_start "$RUN_DIR" "$DB_PORT"; PIDS+=("$DB_PID")
+db_sql "$RUN_DIR" "CREATE DATABASE IF NOT EXISTS sw_it CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+GRANT ALL PRIVILEGES ON sw_it.* TO '$DB_USER'@'127.0.0.1'; FLUSH PRIVILEGES;"
+
+PASSED=0; FAILED=0; FAILED_STEPS=()
+step_result() { # NAME EXIT_CODE — a step that is not a test runner counts as one check
+  if [ "$2" = "0" ]; then PASSED=$((PASSED+1)); say "✔ $1"; else FAILED=$((FAILED+1)); FAILED_STEPS+=("$1"); say "✘ $1"; fi
+}
+count_json() { # NAME JSONFILE EXIT_CODE — adds a runner's counts from its JSON report
+  local out
+  out="$(node scripts/count-results.mjs "$2" 2>/dev/null)" || out=""
+  if [ -z "$out" ]; then step_result "$1 (no report)" 1; return; fi
+  local p="${out% *}" f="${out#* }"
+  PASSED=$((PASSED+p)); FAILED=$((FAILED+f))
+  if [ "$f" != "0" ] || [ "$3" != "0" ]; then FAILED_STEPS+=("$1"); [ "$f" = "0" ] && FAILED=$((FAILED+1)); fi
+  say "$1: $p passed, $f failed"
+}
+
+say "Typecheck"; npx tsc --noEmit; step_result "typecheck" $?
+say "Lint"; npx eslint . --max-warnings=0; step_result "lint" $?
+
+say "Unit and reference tests"
+npx vitest run --project unit --reporter=default --reporter=json --outputFile.json="$REPORTS/unit.json"
+count_json "unit+reference" "$REPORTS/unit.json" $?
+
+say "Integration tests (MariaDB on 127.0.0.1:$DB_PORT)"
+DB_NAME=sw_it npx vitest run --project integration --reporter=default --reporter=json --outputFile.json="$REPORTS/integration.json"
+count_json "integration" "$REPORTS/integration.json" $?
+
+say "Migrate and seed the end-to-end database"
+node --import tsx scripts/migrate.ts && node --import tsx scripts/seed.ts; step_result "migrate+seed" $?
+
+say "Production build"
+node node_modules/next/dist/bin/next build; step_result "build" $?
+
+say "Mail sink and outbox sender"
+node --import tsx scripts/mail-sink.ts & PIDS+=("$!")
+node --import tsx scripts/outbox-worker.ts & PIDS+=("$!")
+
+say "End-to-end tests (Playwright, Debian Chromium)"
+PLAYWRIGHT_JSON_OUTPUT_NAME="$REPORTS/e2e.json" npx playwright test --reporter=list,json
+count_json "end-to-end" "$REPORTS/e2e.json" $?
+
+[ ${#FAILED_STEPS[@]} -gt 0 ] && say "Failed: ${FAILED_STEPS[*]}"
+echo "$PASSED passed, $FAILED failed"
+[ "$FAILED" = "0" ] && [ ${#FAILED_STEPS[@]} -eq 0 ]
