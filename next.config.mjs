@@ -3,5 +3,7 @@ const nextConfig = {
   serverExternalPackages: ["knex", "mysql2", "pdfkit", "bcryptjs", "nodemailer", "smtp-server"],
   poweredByHeader: false,
   experimental: { authInterrupts: true },
+  // Only for local sandboxes while others' work is in progress; npm test always typechecks (tsc and build).
+  typescript: { ignoreBuildErrors: process.env.SW_SKIP_TYPECHECK === "1" },
 };
 export default nextConfig;
