@@ -1,0 +1,15 @@
+export { parseCrossoverCsv, utf8Length, MAX_CSV_BYTES, MAX_REPORTED_ERRORS } from "./csv";
+export type { CrossoverCsvOptions, CrossoverCsvResult, CrossoverCsvSummary, CrossoverRow, CsvRowError } from "./csv";
+export { CROSSOVER_CSV_COLUMNS, listUnits } from "./csv-columns";
+export type { AcceptedColumn, AcceptedUnit, ColumnRole } from "./csv-columns";
+export { PLAUSIBLE_RANGES } from "./csv-cells";
+export type { PlausibleRange } from "./csv-cells";
+export type { DetectedColumn, HeaderInfo } from "./csv-header";
+export { fitMembrane, MEMBRANE_FIT_MODEL } from "./fit";
+export type * from "./fit-types";
+export { NARROW_CONDUCTIVITY_SPAN, NEAR_SINGULAR_RCOND } from "./fit-report";
+export { firstCrossoverFrequency, crossoverGradient, crossoverRadicand } from "./model";
+export { studentTQuantile, studentTCdf } from "./student-t";
+export { exampleCrossoverCsv } from "./example";
+export type { ExampleCsvOptions } from "./example";
+export { FittingInputError, CsvHeaderError, CsvTooLargeError } from "./errors";
