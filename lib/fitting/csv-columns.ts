@@ -79,7 +79,10 @@ export const CROSSOVER_CSV_COLUMNS: readonly AcceptedColumn[] = [
   },
 ];
 
-/** Lower-cases, turns "_" "-" "." into spaces and collapses runs of spaces. */
+/**
+ * Lower-cases, turns "_" "-" "." into spaces and collapses runs of spaces.
+ * @example normaliseName("f_xo1") // "f xo1"
+ */
 export function normaliseName(name: string): string {
   return name.toLowerCase().replace(/[_\-.]+/g, " ").replace(/\s+/g, " ").trim();
 }
@@ -121,7 +124,10 @@ export function matchUnit(column: AcceptedColumn, written: string): { unit: Acce
   return { refused: `"${written}" is not a unit accepted for ${column.label.toLowerCase()}` };
 }
 
-/** "S/m, mS/m, µS/cm (also uS/cm, μS/cm), mS/cm" for messages and help text. */
+/**
+ * The units of a column as one line for messages and help text.
+ * @example listUnits(CROSSOVER_CSV_COLUMNS[0]) // "S/m, mS/m, µS/cm (also uS/cm, μS/cm), mS/cm"
+ */
 export function listUnits(column: AcceptedColumn): string {
   return column.units.map((u) => (u.alsoAccepted.length ? `${u.symbol} (also ${u.alsoAccepted.join(", ")})` : u.symbol)).join(", ");
 }

@@ -56,7 +56,10 @@ export interface CrossoverCsvResult {
   summary: CrossoverCsvSummary;
 }
 
-/** Bytes the string takes in UTF-8, without allocating an encoded copy. */
+/**
+ * Bytes the string takes in UTF-8, without allocating an encoded copy.
+ * @example utf8Length("µS/cm") // 6
+ */
 export function utf8Length(text: string): number {
   let n = 0;
   for (let i = 0; i < text.length; i++) {
@@ -126,7 +129,7 @@ export function parseCrossoverCsv(text: string, options: CrossoverCsvOptions = {
   let errorCount = 0;
   let emptyLineCount = first.before;
   let dataRowCount = 0;
-  const width = Math.max(...header.columns.map((c) => c.index), ...header.ignoredColumns.map((c) => c.index)) + 1;
+  const width = [...header.columns, ...header.ignoredColumns].reduce((w, c) => Math.max(w, c.index + 1), 0);
   const last = parsed.data.length - 1;
   for (let i = first.before + 1; i <= last; i++) {
     const record = parsed.data[i];

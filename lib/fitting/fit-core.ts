@@ -51,7 +51,7 @@ export function buildProblem(
     fixedConductance,
     cScale: C_SCALE,
     gScale: median(ratios),
-    gMax: Math.min(...ratios),
+    gMax: ratios.reduce((m, v) => Math.min(m, v), Infinity),
   };
 }
 
@@ -156,7 +156,7 @@ export function runLevenbergMarquardt(problem: Problem, start: Estimate): { esti
     minValues: problem.fitConductance ? [1e-9, 0] : [1e-9],
     maxValues: problem.fitConductance ? [1e9, gUpper] : [1e9],
     jacobianFunction: jacobian,
-    maxIterations: 300,
+    maxIterations: 40,
     errorTolerance: 1e-30,
     damping: 1e-2,
   });

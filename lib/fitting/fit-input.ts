@@ -20,6 +20,9 @@ export interface ResolvedOptions {
   curvePoints: number;
 }
 
+/** Most points one fit takes: far above any crossover series, low enough to fit in well under a second. */
+export const MAX_FIT_POINTS = 10_000;
+
 function positive(value: unknown): value is number {
   return typeof value === "number" && Number.isFinite(value) && value > 0;
 }
@@ -70,6 +73,8 @@ export function resolveOptions(options: FitOptions): ResolvedOptions {
 export function resolvePoints(points: readonly CrossoverPoint[], radius: number | undefined): ResolvedPoint[] {
   if (!Array.isArray(points) || points.length === 0)
     throw new FittingInputError([{ path: "points", message: "at least one crossover measurement is needed; got none" }]);
+  if (points.length > MAX_FIT_POINTS)
+    throw new FittingInputError([{ path: "points", message: `a fit takes at most ${MAX_FIT_POINTS} points (one per measured crossover); got ${points.length}. Average replicate readings per conductivity first.` }]);
   const issues: FieldIssue[] = [];
   const out: ResolvedPoint[] = [];
   points.forEach((p, index) => {

@@ -12,6 +12,14 @@ export const NARROW_CONDUCTIVITY_SPAN = 3;
  */
 export const NEAR_SINGULAR_RCOND = 1e-2;
 
+/**
+ * [min, max] without spreading (safe for long arrays).
+ * @example extent([3, 1, 2]) // [1, 3]
+ */
+export function extent(values: number[]): [number, number] {
+  return values.reduce<[number, number]>(([lo, hi], v) => [Math.min(lo, v), Math.max(hi, v)], [Infinity, -Infinity]);
+}
+
 const mS = (s: number) => `${+(s * 1000).toPrecision(3)} mS/m`;
 const rows = (problem: Problem) => problem.points.map((p) => p.rowNumber).filter((r): r is number => r !== undefined);
 
@@ -49,8 +57,7 @@ export function identifiabilityWarnings(
   const out: FitWarning[] = [];
   const pct = `${Math.round(level * 100)} %`;
   const sig = problem.points.map((p) => p.conductivity);
-  const lo = Math.min(...sig);
-  const hi = Math.max(...sig);
+  const [lo, hi] = extent(sig);
   if (stats.dof <= 0)
     out.push({ code: "no-degrees-of-freedom", message: `${problem.points.length} point(s) for ${problem.points.length - stats.dof} parameter(s): the curve passes through every point, so no ${pct} confidence interval can be given. Measure at more medium conductivities.` });
   else if (stats.dof < 3)
@@ -88,8 +95,7 @@ function median(values: number[]): number {
 export function fittedCurve(problem: Problem, e: Estimate, stats: FitStatistics, count: number): { radius: number; points: CurvePoint[] } {
   const radius = median(problem.points.map((p) => p.radius));
   const sig = problem.points.map((p) => p.conductivity);
-  let lo = Math.min(...sig);
-  let hi = Math.max(...sig);
+  let [lo, hi] = extent(sig);
   if (hi === lo) [lo, hi] = [lo / 1.1, hi * 1.1];
   const points: CurvePoint[] = [];
   for (let k = 0; k < count; k++) {

@@ -1,7 +1,7 @@
 import { FittingInputError } from "./errors";
 import { buildProblem, runLevenbergMarquardt, startingEstimate, sumOfSquares, type Estimate, type Problem } from "./fit-core";
 import { resolveOptions, resolvePoints, type ResolvedPoint } from "./fit-input";
-import { fittedCurve, identifiabilityWarnings, parameterEstimate } from "./fit-report";
+import { extent, fittedCurve, identifiabilityWarnings, parameterEstimate } from "./fit-report";
 import { boundState, fitStatistics, isConverged } from "./fit-stats";
 import type { CrossoverPoint, FitOptions, FitWarning, MembraneFit, PointResidual } from "./fit-types";
 import { crossoverRadicand, firstCrossoverFrequency } from "./model";
@@ -17,12 +17,12 @@ function splitByCrossover(points: ResolvedPoint[], g: number) {
   return { kept, dropped };
 }
 
-/** Runs Levenberg–Marquardt up to three times (restarting resets the damping) until converged. */
+/** Runs Levenberg–Marquardt in rounds of 40 iterations, up to 10 rounds, until the Gauss–Newton check says converged. */
 function optimise(problem: Problem, start: Estimate): { estimate: Estimate; iterations: number; converged: boolean } {
   let best = start;
   let iterations = 0;
   if (problem.points.length < 2) return { estimate: start, iterations: 0, converged: isConverged(problem, start) };
-  for (let run = 0; run < 3; run++) {
+  for (let run = 0; run < 10; run++) {
     const r = runLevenbergMarquardt(problem, best);
     iterations += r.iterations;
     if (sumOfSquares(problem, r.estimate) <= sumOfSquares(problem, best)) best = r.estimate;
@@ -82,7 +82,8 @@ export function fitMembrane(points: readonly CrossoverPoint[], options: FitOptio
     warnings.push({ code: "not-converged", message: `The fit stopped after ${iterations} iterations without settling; treat the estimates as provisional and try starting values.` });
   const radii = kept.map((k) => k.radius);
   const curve = fittedCurve(problem, estimate, stats, opts.curvePoints);
-  if (Math.max(...radii) > Math.min(...radii) * 1.01)
+  const [rMin, rMax] = extent(radii);
+  if (rMax > rMin * 1.01)
     warnings.push({ code: "radius-varies", message: `Radii differ between points; each residual uses its own radius, the curve is drawn at the median radius ${(curve.radius * 1e6).toPrecision(3)} µm.` });
   const residuals = residualsOf(kept, estimate);
   const cov = stats.covariance;

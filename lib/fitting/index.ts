@@ -6,6 +6,7 @@ export { PLAUSIBLE_RANGES } from "./csv-cells";
 export type { PlausibleRange } from "./csv-cells";
 export type { DetectedColumn, HeaderInfo } from "./csv-header";
 export { fitMembrane, MEMBRANE_FIT_MODEL } from "./fit";
+export { MAX_FIT_POINTS } from "./fit-input";
 export type * from "./fit-types";
 export { NARROW_CONDUCTIVITY_SPAN, NEAR_SINGULAR_RCOND } from "./fit-report";
 export { firstCrossoverFrequency, crossoverGradient, crossoverRadicand } from "./model";

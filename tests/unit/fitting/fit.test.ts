@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { FittingInputError } from "@/lib/fitting/errors";
 import { fitMembrane } from "@/lib/fitting/fit";
+import { MAX_FIT_POINTS } from "@/lib/fitting/fit-input";
 import { firstCrossoverFrequency } from "@/lib/fitting/model";
 import { syntheticCrossovers } from "./synthetic";
 
@@ -129,6 +130,20 @@ describe("fitMembrane says what the data cannot determine", () => {
   });
 });
 
+describe("fitMembrane at the point limit", () => {
+  it("fits 10 000 points in reasonable time and narrows the intervals", () => {
+    const sig = Array.from({ length: MAX_FIT_POINTS }, (_, i) => 0.004 * 25 ** (i / (MAX_FIT_POINTS - 1)));
+    const t0 = performance.now();
+    const fit = fitMembrane(syntheticCrossovers(sig, truth, 0.02, 3), { radius: truth.radius });
+    // 10 s: generous ceiling on a shared 2-core machine (measured ≈0.4 s; common practice).
+    expect(performance.now() - t0).toBeLessThan(10_000);
+    expect(fit.converged).toBe(true);
+    expect(inside(truth.conductance, fit.conductance.confidenceInterval)).toBe(true);
+    // SE shrinks like 1/√n: with 10 000 points G is known to within a few S/m² (common practice).
+    expect(fit.conductance.relativeHalfWidth!).toBeLessThan(0.01);
+  }, 30_000);
+});
+
 describe("fitMembrane with a radius per point", () => {
   it("uses each point's radius and recovers the truth", () => {
     const radii = [4e-6, 4.5e-6, 5e-6, 5.5e-6, 6e-6, 5e-6, 4.8e-6]; // invented spread of cell radii
@@ -188,6 +203,11 @@ describe("fitMembrane input errors", () => {
     expect(() => fitMembrane(one, { radius: 5e-6, confidenceLevel: 95 })).toThrow(FittingInputError);
     expect(() => fitMembrane([], { radius: 5e-6 })).toThrow(/got none/);
     expect(() => fitMembrane([{ conductivity: 0.01, crossoverFrequency: Number.NaN }], { radius: 5e-6 })).toThrow(/crossover frequency/);
+  });
+
+  it("refuses more points than MAX_FIT_POINTS", () => {
+    const many = Array.from({ length: MAX_FIT_POINTS + 1 }, () => ({ conductivity: 0.01, crossoverFrequency: 4e4 }));
+    expect(() => fitMembrane(many, { radius: 5e-6 })).toThrow(/at most 10000 points/);
   });
 
   it("fits C from a single point with G fixed, without an interval", () => {
