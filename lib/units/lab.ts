@@ -1,0 +1,135 @@
+/**
+ * Lab units at the UI edge. The engine, the database and the JSON API are SI; screens show and accept the units a
+ * bench scientist writes in a notebook. Every conversion goes through this table: `toSI(unit, value)` and
+ * `fromSI(unit, value)`, with `UNITS_BY_QUANTITY` saying which units each quantity offers.
+ */
+
+/** Physical quantities the screens show, each with one SI unit. */
+export type Quantity =
+  | "length"
+  | "conductivity"
+  | "areaCapacitance"
+  | "areaConductance"
+  | "frequency"
+  | "voltage"
+  | "osmolality"
+  | "gradientFactor"
+  | "surfaceConductance"
+  | "temperature"
+  | "fraction"
+  | "relative";
+
+/** One unit: its symbol, the quantity and SI unit it belongs to, and SI = value × factor + offset. */
+export interface LabUnit {
+  symbol: string;
+  quantity: Quantity;
+  si: string;
+  factor: number;
+  offset: number;
+  /** Spelled out for screen readers and help text. */
+  name: string;
+}
+
+const u = (symbol: string, quantity: Quantity, si: string, factor: number, name: string, offset = 0): LabUnit => ({ symbol, quantity, si, factor, offset, name });
+
+/** Every unit the UI uses, keyed by an ASCII id (symbols carry µ, ², ⁻³). */
+export const LAB_UNITS = {
+  m: u("m", "length", "m", 1, "metres"),
+  mm: u("mm", "length", "m", 1e-3, "millimetres"),
+  um: u("µm", "length", "m", 1e-6, "micrometres"),
+  nm: u("nm", "length", "m", 1e-9, "nanometres"),
+  S_m: u("S/m", "conductivity", "S/m", 1, "siemens per metre"),
+  mS_m: u("mS/m", "conductivity", "S/m", 1e-3, "millisiemens per metre"),
+  uS_cm: u("µS/cm", "conductivity", "S/m", 1e-4, "microsiemens per centimetre"),
+  mS_cm: u("mS/cm", "conductivity", "S/m", 0.1, "millisiemens per centimetre"),
+  F_m2: u("F/m²", "areaCapacitance", "F/m²", 1, "farads per square metre"),
+  uF_cm2: u("µF/cm²", "areaCapacitance", "F/m²", 1e-2, "microfarads per square centimetre"),
+  mF_m2: u("mF/m²", "areaCapacitance", "F/m²", 1e-3, "millifarads per square metre"),
+  S_m2: u("S/m²", "areaConductance", "S/m²", 1, "siemens per square metre"),
+  S_cm2: u("S/cm²", "areaConductance", "S/m²", 1e4, "siemens per square centimetre"),
+  mS_cm2: u("mS/cm²", "areaConductance", "S/m²", 10, "millisiemens per square centimetre"),
+  Hz: u("Hz", "frequency", "Hz", 1, "hertz"),
+  kHz: u("kHz", "frequency", "Hz", 1e3, "kilohertz"),
+  MHz: u("MHz", "frequency", "Hz", 1e6, "megahertz"),
+  V: u("V", "voltage", "V", 1, "volts"),
+  osmol_kg: u("osmol/kg", "osmolality", "osmol/kg", 1, "osmoles per kilogram"),
+  mOsm_kg: u("mOsm/kg", "osmolality", "osmol/kg", 1e-3, "milliosmoles per kilogram"),
+  per_m3: u("m⁻³", "gradientFactor", "m⁻³", 1, "per cubic metre"),
+  per_um3: u("µm⁻³", "gradientFactor", "m⁻³", 1e18, "per cubic micrometre"),
+  S: u("S", "surfaceConductance", "S", 1, "siemens"),
+  nS: u("nS", "surfaceConductance", "S", 1e-9, "nanosiemens"),
+  degC: u("°C", "temperature", "°C", 1, "degrees Celsius"),
+  K: u("K", "temperature", "°C", 1, "kelvin", -273.15),
+  ratio: u("", "fraction", "", 1, "fraction"),
+  percent: u("%", "fraction", "", 1e-2, "per cent"),
+  rel: u("", "relative", "", 1, "relative to vacuum"),
+} as const satisfies Record<string, LabUnit>;
+
+export type UnitId = keyof typeof LAB_UNITS;
+
+/** The units offered per quantity; the first is the screen's default, the SI unit is always included. */
+export const UNITS_BY_QUANTITY: Record<Quantity, readonly UnitId[]> = {
+  length: ["um", "nm", "mm", "m"],
+  conductivity: ["mS_m", "uS_cm", "S_m", "mS_cm"],
+  areaCapacitance: ["uF_cm2", "mF_m2", "F_m2"],
+  areaConductance: ["S_m2", "S_cm2", "mS_cm2"],
+  frequency: ["kHz", "MHz", "Hz"],
+  voltage: ["V"],
+  osmolality: ["mOsm_kg", "osmol_kg"],
+  gradientFactor: ["per_m3", "per_um3"],
+  surfaceConductance: ["nS", "S"],
+  temperature: ["degC", "K"],
+  fraction: ["percent", "ratio"],
+  relative: ["rel"],
+};
+
+/**
+ * Converts a value in a lab unit to SI.
+ * @example toSI("um", 6) // 6e-6 (m)
+ * @example toSI("uS_cm", 100) // 0.01 (S/m)
+ */
+export function toSI(unit: UnitId, value: number): number {
+  const d = LAB_UNITS[unit];
+  return value * d.factor + d.offset;
+}
+
+/**
+ * Converts an SI value to a lab unit.
+ * @example fromSI("uF_cm2", 0.01) // 1 (µF/cm²)
+ * @example fromSI("mS_m", 0.01) // 10 (mS/m)
+ */
+export function fromSI(unit: UnitId, value: number): number {
+  const d = LAB_UNITS[unit];
+  return (value - d.offset) / d.factor;
+}
+
+/**
+ * Rounds a converted value to `digits` significant figures, cleaning float noise (1e-6 µm → 1, not 0.9999999).
+ * @example tidy(0.30000000000000004) // 0.3
+ */
+export function tidy(value: number, digits = 10): number {
+  if (!Number.isFinite(value) || value === 0) return value;
+  return Number(value.toPrecision(digits));
+}
+
+/**
+ * Formats an SI value in a lab unit with `digits` significant figures and the unit symbol.
+ * @example formatIn("um", 6e-6) // "6 µm"
+ * @example formatIn("kHz", 123456, 3) // "123 kHz"
+ */
+export function formatIn(unit: UnitId, valueSI: number | null | undefined, digits = 4): string {
+  if (valueSI === null || valueSI === undefined || !Number.isFinite(valueSI)) return "—";
+  const v = fromSI(unit, valueSI);
+  const abs = Math.abs(v);
+  const text = abs !== 0 && (abs >= 1e6 || abs < 1e-3) ? v.toExponential(Math.max(0, digits - 1)).replace(/\.?0+e/, "e") : String(Number(v.toPrecision(digits)));
+  const symbol = LAB_UNITS[unit].symbol;
+  return symbol ? `${text} ${symbol}` : text;
+}
+
+/**
+ * Units of one quantity, for a unit picker.
+ * @example unitsOf("conductivity").map((u) => u.symbol) // ["mS/m", "µS/cm", "S/m", "mS/cm"]
+ */
+export function unitsOf(quantity: Quantity): (LabUnit & { id: UnitId })[] {
+  return UNITS_BY_QUANTITY[quantity].map((id) => ({ id, ...LAB_UNITS[id] }));
+}
