@@ -5,6 +5,7 @@ set -uo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 MODE="prod"; [ "${1:-}" = "--dev" ] && MODE="dev"
+export NEXT_TELEMETRY_DISABLED=1
 
 ensure_apt mariadb-server mariadb-client
 ensure_node_modules

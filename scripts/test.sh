@@ -9,7 +9,7 @@ ensure_node_modules
 
 RUN_DIR="$ROOT/.data/test-$$"
 REPORTS="$RUN_DIR/reports"; mkdir -p "$REPORTS"
-export NODE_ENV=test CI="${CI:-}" SIEVEWRIGHT_TEST=1
+export CI="${CI:-}" SIEVEWRIGHT_TEST=1 NEXT_TELEMETRY_DISABLED=1
 export DB_HOST=127.0.0.1 DB_PORT="${TEST_DB_PORT:-3317}" DB_USER=sw_test DB_PASSWORD=sw-test-pass DB_NAME=sw_e2e
 export APP_PORT=3100 NEXTAUTH_URL=http://127.0.0.1:3100 NEXTAUTH_SECRET=test-secret-not-for-production
 export APP_BASE_URL=http://127.0.0.1:3100
