@@ -1,6 +1,7 @@
 import type { Knex } from "knex";
 import * as m001 from "./20261201_001_foundation";
 import * as m002 from "./20261201_002_api_tokens";
+import * as m006 from "./20261201_006_wizard_drafts";
 
 /**
  * Every migration, in order. Adding one: create `db/migrations/<date>_<nnn>_<name>.ts` exporting `up` and `down`,
@@ -9,6 +10,7 @@ import * as m002 from "./20261201_002_api_tokens";
 const MIGRATIONS: [string, Knex.Migration][] = [
   ["20261201_001_foundation", m001],
   ["20261201_002_api_tokens", m002],
+  ["20261201_006_wizard_drafts", m006],
 ];
 
 /** Knex migration source backed by the list above. */
