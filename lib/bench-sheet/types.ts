@@ -1,0 +1,67 @@
+import type { ProtocolContent } from "@/lib/protocols/content";
+import type { PaperSize, SectionId } from "@/templates/bench-sheet/layout";
+
+/** Version states as stored in protocol_versions.state. */
+export const BENCH_VERSION_STATES = ["draft", "in_review", "approved", "returned", "superseded", "retired"] as const;
+export type BenchVersionState = (typeof BENCH_VERSION_STATES)[number];
+
+/** How each state is printed. */
+export const STATE_WORDS: Record<BenchVersionState, string> = {
+  draft: "Draft",
+  in_review: "In review",
+  approved: "Approved",
+  returned: "Returned",
+  superseded: "Superseded",
+  retired: "Retired",
+};
+
+/** One electronic signature on the version, with the signer's name. */
+export interface SheetSignature {
+  signerName: string;
+  signerRole: string;
+  meaning: string;
+  signedAt: Date;
+  contentHash: string;
+}
+
+/** Everything the sheet is built from: the protocol, the version, its signatures and its frozen content. */
+export interface BenchSheetSource {
+  protocol: { id: number; code: string; title: string; purpose: string };
+  version: { id: number; number: number; state: BenchVersionState; contentHash: string; engineVersion: string };
+  signatures: SheetSignature[];
+  content: ProtocolContent;
+}
+
+/** What the person printing chooses, and when it is printed. */
+export interface BenchSheetOptions {
+  volumeMl: number;
+  paper: PaperSize;
+  printedAt: Date;
+  printedBy?: string;
+}
+
+/** A piece of a section, in reading order. */
+export type SheetBlock =
+  | { kind: "paragraph"; text: string; style?: "body" | "strong" | "note" | "formula" }
+  | { kind: "fields"; rows: { label: string; value: string }[] }
+  | { kind: "table"; columns: { title: string; width: number }[]; rows: string[][]; caption?: string }
+  | { kind: "steps"; items: string[] }
+  | { kind: "bullets"; items: string[] }
+  | { kind: "record"; lines: { label: string; unit?: string; lines?: number }[] };
+
+/** One numbered part of the sheet. */
+export interface SheetSection {
+  id: SectionId;
+  title: string;
+  blocks: SheetBlock[];
+}
+
+/** The whole sheet as data: the renderer draws exactly this. */
+export interface BenchSheetLayout {
+  paper: PaperSize;
+  header: { code: string; title: string; purpose: string; versionLabel: string; stateLabel: string; runningHeader: string; meta: string };
+  /** The diagonal mark's text on every page, or null for an approved, correctly signed version. */
+  mark: string | null;
+  sections: SheetSection[];
+  footer: { signatureLines: string[]; hashLine: string };
+}
