@@ -1,0 +1,180 @@
+import type { Knex } from "knex";
+import { db } from "@/db/knex";
+import type { VersionState } from "./states";
+import { toComment, toProtocol, toSignature, toVersion, type Protocol, type ProtocolVersion, type ReviewComment, type Signature } from "./mapper";
+
+/** Database access for protocols (no rules here: the service decides, this reads and writes rows). */
+
+type Conn = Knex | Knex.Transaction;
+
+/** Inserts a protocol row; returns its id. */
+export async function insertProtocol(trx: Conn, p: { code: string; title: string; purpose: string; createdBy: number }): Promise<number> {
+  const [id] = await trx("protocols").insert({ code: p.code, title: p.title, purpose: p.purpose, created_by: p.createdBy });
+  return Number(id);
+}
+
+/** Highest sequence number already used with `prefix` ("LFQ-0007" → 7); 0 when none. */
+export async function highestCodeNumber(trx: Conn, prefix: string): Promise<number> {
+  const rows: { code: string }[] = await trx("protocols").where("code", "like", `${prefix}-%`).select("code");
+  return rows.reduce((max, r) => Math.max(max, Number(r.code.slice(prefix.length + 1)) || 0), 0);
+}
+
+/** A protocol by id. */
+export async function findProtocol(conn: Conn, id: number): Promise<Protocol | null> {
+  const row = await conn("protocols").where({ id }).first();
+  return row ? toProtocol(row) : null;
+}
+
+/** Touches protocols.updated_at. */
+export async function touchProtocol(trx: Conn, id: number): Promise<void> {
+  await trx("protocols").where({ id }).update({ updated_at: trx.fn.now(3) });
+}
+
+/** Inserts a version row; returns its id. */
+export async function insertVersion(
+  trx: Conn,
+  v: { protocolId: number; number: number; content: unknown; engineVersion: string; contentHash: string; authorId: number },
+): Promise<number> {
+  const [id] = await trx("protocol_versions").insert({
+    protocol_id: v.protocolId,
+    number: v.number,
+    state: "draft",
+    content_json: JSON.stringify(v.content),
+    engine_version: v.engineVersion,
+    content_hash: v.contentHash,
+    author_id: v.authorId,
+    last_editor_id: v.authorId,
+    lock_version: 1,
+  });
+  return Number(id);
+}
+
+/** A version by id; `forUpdate` takes a row lock (SELECT … FOR UPDATE) inside a transaction. */
+export async function findVersion(conn: Conn, id: number, opts: { forUpdate?: boolean } = {}): Promise<ProtocolVersion | null> {
+  const q = conn("protocol_versions").where({ id }).first();
+  if (opts.forUpdate) q.forUpdate();
+  const row = await q;
+  return row ? toVersion(row) : null;
+}
+
+/** A version by protocol and number. */
+export async function findVersionByNumber(conn: Conn, protocolId: number, number: number): Promise<ProtocolVersion | null> {
+  const row = await conn("protocol_versions").where({ protocol_id: protocolId, number }).first();
+  return row ? toVersion(row) : null;
+}
+
+/** The highest-numbered version of a protocol (locked when `forUpdate`). */
+export async function latestVersion(conn: Conn, protocolId: number, opts: { forUpdate?: boolean } = {}): Promise<ProtocolVersion | null> {
+  const q = conn("protocol_versions").where({ protocol_id: protocolId }).orderBy("number", "desc").first();
+  if (opts.forUpdate) q.forUpdate();
+  const row = await q;
+  return row ? toVersion(row) : null;
+}
+
+/** Every version of a protocol, newest first. */
+export async function listVersions(conn: Conn, protocolId: number): Promise<ProtocolVersion[]> {
+  return (await conn("protocol_versions").where({ protocol_id: protocolId }).orderBy("number", "desc")).map(toVersion);
+}
+
+/** The protocol's approved versions other than `exceptId`, locked for update. */
+export async function approvedVersionsForUpdate(trx: Conn, protocolId: number, exceptId: number): Promise<ProtocolVersion[]> {
+  const rows = await trx("protocol_versions").where({ protocol_id: protocolId, state: "approved" }).whereNot({ id: exceptId }).forUpdate();
+  return rows.map(toVersion);
+}
+
+/** The latest version numbered below `number` that was signed off (approved, superseded or retired after approval). */
+export async function previousApproved(conn: Conn, protocolId: number, number: number): Promise<ProtocolVersion | null> {
+  const row = await conn("protocol_versions")
+    .where({ protocol_id: protocolId })
+    .andWhere("number", "<", number)
+    .whereNotNull("approved_at")
+    .orderBy("number", "desc")
+    .first();
+  return row ? toVersion(row) : null;
+}
+
+/** Columns a state change or edit may set. */
+export interface VersionPatch {
+  state?: VersionState;
+  content?: unknown;
+  contentHash?: string;
+  engineVersion?: string;
+  lastEditorId?: number;
+  submittedAt?: "now" | null;
+  approvedAt?: "now";
+  supersededAt?: "now";
+}
+
+/**
+ * Applies `patch` and bumps lock_version, only if the row still has `expectedLock`; returns whether it did.
+ * @example if (!(await updateVersion(trx, 4, 3, { state: "in_review" }))) throw new ConflictError("…");
+ */
+export async function updateVersion(trx: Conn, id: number, expectedLock: number, patch: VersionPatch): Promise<boolean> {
+  const now = trx.fn.now(3);
+  const set: Record<string, unknown> = { lock_version: expectedLock + 1, updated_at: now };
+  if (patch.state) set.state = patch.state;
+  if (patch.content !== undefined) set.content_json = JSON.stringify(patch.content);
+  if (patch.contentHash) set.content_hash = patch.contentHash;
+  if (patch.engineVersion) set.engine_version = patch.engineVersion;
+  if (patch.lastEditorId) set.last_editor_id = patch.lastEditorId;
+  if (patch.submittedAt !== undefined) set.submitted_at = patch.submittedAt === "now" ? now : null;
+  if (patch.approvedAt) set.approved_at = now;
+  if (patch.supersededAt) set.superseded_at = now;
+  const changed = await trx("protocol_versions").where({ id, lock_version: expectedLock }).update(set);
+  return changed === 1;
+}
+
+/** Everyone who created or edited the version, read from the append-only audit trail plus the row itself. */
+export async function editorIds(conn: Conn, version: Pick<ProtocolVersion, "id" | "authorId" | "lastEditorId">): Promise<number[]> {
+  const rows: { actor_id: number | null }[] = await conn("audit_events")
+    .where({ entity_type: "protocol_version", entity_id: String(version.id) })
+    .whereIn("action", ["protocol_version.create", "protocol_version.edit"])
+    .distinct("actor_id");
+  const ids = new Set<number>([version.authorId, version.lastEditorId]);
+  for (const r of rows) if (r.actor_id !== null) ids.add(Number(r.actor_id));
+  return [...ids];
+}
+
+/** Inserts a signature; returns its id. */
+export async function insertSignature(
+  trx: Conn,
+  s: { versionId: number; signerId: number; signerRole: string; meaning: string; contentHash: string },
+): Promise<number> {
+  const [id] = await trx("signatures").insert({
+    version_id: s.versionId,
+    signer_id: s.signerId,
+    signer_role: s.signerRole,
+    meaning: s.meaning,
+    content_hash: s.contentHash,
+  });
+  return Number(id);
+}
+
+/** Signatures of the given versions, oldest first, with the signer's name. */
+export async function listSignatures(conn: Conn, versionIds: number[]): Promise<Signature[]> {
+  if (versionIds.length === 0) return [];
+  const rows = await conn("signatures as s")
+    .join("users as u", "u.id", "s.signer_id")
+    .whereIn("s.version_id", versionIds)
+    .orderBy("s.id")
+    .select("s.*", "u.name as signer_name", "u.email as signer_email");
+  return rows.map(toSignature);
+}
+
+/** Inserts a review comment; returns its id. */
+export async function insertComment(trx: Conn, c: { versionId: number; authorId: number; body: string; kind: "return" | "note" }): Promise<number> {
+  const [id] = await trx("review_comments").insert({ version_id: c.versionId, author_id: c.authorId, body: c.body, kind: c.kind });
+  return Number(id);
+}
+
+/** Comments on a version, oldest first, with the author's name. */
+export async function listComments(conn: Conn, versionId: number): Promise<ReviewComment[]> {
+  const rows = await conn("review_comments as c")
+    .join("users as u", "u.id", "c.author_id")
+    .where("c.version_id", versionId)
+    .orderBy("c.id")
+    .select("c.*", "u.name as author_name");
+  return rows.map(toComment);
+}
+
+export { db };
