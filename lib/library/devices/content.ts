@@ -1,0 +1,125 @@
+import { z } from "zod";
+import { interdigitatedField } from "@/lib/dielectric";
+import { formatIn, fromSI, tidy, toSI } from "@/lib/units/lab";
+import { labNumber } from "../form-numbers";
+import { nameSchema, notesSchema, organisationSchema, versionMetaFormSchema } from "../schemas";
+import type { DisplayRow } from "../populations/content";
+
+export const GEOMETRY_KINDS = ["interdigitated", "user-gradient"] as const;
+export type GeometryKind = (typeof GEOMETRY_KINDS)[number];
+export const GEOMETRY_LABELS: Record<GeometryKind, string> = {
+  interdigitated: "Interdigitated electrodes (preset)",
+  "user-gradient": "Own field-gradient factor Γ",
+};
+
+const len = z.number().min(1e-6).max(5e-3);
+
+/** The stored content of one device-profile version. SI: m, m⁻³, V, Hz. */
+export const deviceContentSchema = z
+  .object({
+    name: nameSchema,
+    organisation: organisationSchema.default(""),
+    geometry: z.discriminatedUnion("kind", [
+      z.object({ kind: z.literal("interdigitated"), electrodeWidth: len, electrodeGap: len, channelHeight: len }),
+      z.object({ kind: z.literal("user-gradient"), gradientFactor: z.number().min(1e6).max(1e25), gradientSource: z.string().trim().min(3).max(500), electrodeGap: len, channelHeight: len }),
+    ]),
+    generator: z.object({ maxVoltageVpp: z.number().min(0.1).max(200), minFrequency: z.number().min(1).max(1e9), maxFrequency: z.number().min(1).max(1e9) }),
+    notes: notesSchema.default(""),
+  })
+  .refine((d) => d.generator.minFrequency < d.generator.maxFrequency, { path: ["generator", "maxFrequency"], error: "The highest frequency must be above the lowest." });
+export type DeviceContent = z.infer<typeof deviceContentSchema>;
+
+/** The device form in lab units (µm, m⁻³, Vpp, kHz, MHz), for the browser and the server action. */
+export const deviceFormSchema = versionMetaFormSchema
+  .extend({
+    name: nameSchema,
+    organisation: organisationSchema,
+    geometryKind: z.enum(GEOMETRY_KINDS, { error: "Geometry: choose the preset or your own Γ." }),
+    electrodeWidth: labNumber("Electrode width", "um", 1e-6, 5e-3).optional(),
+    electrodeGap: labNumber("Electrode gap", "um", 1e-6, 5e-3),
+    channelHeight: labNumber("Channel height", "um", 1e-6, 5e-3),
+    gradientFactor: labNumber("Field-gradient factor Γ", "per_m3", 1e6, 1e25).optional(),
+    gradientSource: z.string().trim().max(500, { error: "Source of Γ: at most 500 characters." }),
+    maxVoltageVpp: labNumber("Generator limit", "V", 0.1, 200),
+    minFrequencyKHz: labNumber("Lowest frequency", "kHz", 1, 1e9),
+    maxFrequencyMHz: labNumber("Highest frequency", "MHz", 1, 1e9),
+    notes: notesSchema,
+  })
+  .superRefine((f, ctx) => {
+    if (f.geometryKind === "interdigitated" && f.electrodeWidth === undefined)
+      ctx.addIssue({ code: "custom", path: ["electrodeWidth"], message: "Electrode width: enter a number between 1 and 5000 µm." });
+    if (f.geometryKind === "user-gradient" && f.gradientFactor === undefined)
+      ctx.addIssue({ code: "custom", path: ["gradientFactor"], message: "Field-gradient factor Γ: enter a number between 1e6 and 1e25 m⁻³." });
+    if (f.geometryKind === "user-gradient" && f.gradientSource.length < 3)
+      ctx.addIssue({ code: "custom", path: ["gradientSource"], message: "Source of Γ: say where the value comes from (e.g. your field simulation), 3 to 500 characters." });
+    if (toSI("kHz", f.minFrequencyKHz) >= toSI("MHz", f.maxFrequencyMHz))
+      ctx.addIssue({ code: "custom", path: ["maxFrequencyMHz"], message: "Highest frequency: must be above the lowest frequency." });
+  });
+export type DeviceForm = z.input<typeof deviceFormSchema>;
+
+/** Converts a checked device form (lab units) to stored content (SI). */
+export function deviceFormToContent(f: z.output<typeof deviceFormSchema>): DeviceContent {
+  const m = (v: number) => tidy(toSI("um", v), 12);
+  const geometry: DeviceContent["geometry"] =
+    f.geometryKind === "interdigitated"
+      ? { kind: "interdigitated", electrodeWidth: m(f.electrodeWidth!), electrodeGap: m(f.electrodeGap), channelHeight: m(f.channelHeight) }
+      : { kind: "user-gradient", gradientFactor: f.gradientFactor!, gradientSource: f.gradientSource, electrodeGap: m(f.electrodeGap), channelHeight: m(f.channelHeight) };
+  return {
+    name: f.name,
+    organisation: f.organisation,
+    geometry,
+    generator: { maxVoltageVpp: f.maxVoltageVpp, minFrequency: tidy(toSI("kHz", f.minFrequencyKHz), 12), maxFrequency: tidy(toSI("MHz", f.maxFrequencyMHz), 12) },
+    notes: f.notes,
+  };
+}
+
+/** Form values for a stored device (SI → lab units). */
+export function deviceContentToForm(c: DeviceContent): Omit<DeviceForm, "provenanceKind" | "provenanceSource" | "changeNote" | "mode"> {
+  const g = c.geometry;
+  const um = (v: number) => tidy(fromSI("um", v));
+  return {
+    name: c.name,
+    organisation: c.organisation,
+    geometryKind: g.kind,
+    electrodeWidth: g.kind === "interdigitated" ? um(g.electrodeWidth) : undefined,
+    electrodeGap: um(g.electrodeGap),
+    channelHeight: um(g.channelHeight),
+    gradientFactor: g.kind === "user-gradient" ? g.gradientFactor : undefined,
+    gradientSource: g.kind === "user-gradient" ? g.gradientSource : "",
+    maxVoltageVpp: c.generator.maxVoltageVpp,
+    minFrequencyKHz: tidy(fromSI("kHz", c.generator.minFrequency)),
+    maxFrequencyMHz: tidy(fromSI("MHz", c.generator.maxFrequency)),
+    notes: c.notes,
+  };
+}
+
+/**
+ * Γ (m⁻³) the planner uses for this device and where it comes from: the interdigitated preset evaluated half a gap
+ * above the electrodes, or the user's own value.
+ * @example deviceGradient(content) // { gamma: 6.6e13, source: "interdigitated preset …" }
+ */
+export function deviceGradient(c: DeviceContent): { gamma: number; source: string } {
+  const g = c.geometry;
+  if (g.kind === "user-gradient") return { gamma: g.gradientFactor, source: `user value: ${g.gradientSource}` };
+  const field = interdigitatedField(g.electrodeWidth, g.electrodeGap);
+  return { gamma: field.gamma, source: `interdigitated preset, evaluated ${formatIn("um", g.electrodeGap / 2, 3)} above the electrode plane (fundamental Fourier mode; larger near the edges)` };
+}
+
+/** Display rows of a device in lab units (also the unit of the version diff). */
+export function describeDevice(c: DeviceContent): DisplayRow[] {
+  const g = c.geometry;
+  const rows: DisplayRow[] = [
+    { key: "name", label: "Name", value: c.name },
+    { key: "organisation", label: "Organisation or project", value: c.organisation || "—" },
+    { key: "geometry", label: "Geometry", value: GEOMETRY_LABELS[g.kind] },
+  ];
+  if (g.kind === "interdigitated") rows.push({ key: "electrodeWidth", label: "Electrode width", value: formatIn("um", g.electrodeWidth) });
+  rows.push({ key: "electrodeGap", label: "Electrode gap", value: formatIn("um", g.electrodeGap) });
+  rows.push({ key: "channelHeight", label: "Channel height", value: formatIn("um", g.channelHeight) });
+  const grad = deviceGradient(c);
+  rows.push({ key: "gamma", label: "Field-gradient factor Γ", value: `${formatIn("per_m3", grad.gamma, 3)} — ${grad.source}` });
+  rows.push({ key: "maxVoltage", label: "Generator limit", value: `${c.generator.maxVoltageVpp} Vpp` });
+  rows.push({ key: "frequencyRange", label: "Frequency range", value: `${formatIn("kHz", c.generator.minFrequency)} to ${formatIn("MHz", c.generator.maxFrequency)}` });
+  rows.push({ key: "notes", label: "Notes", value: c.notes || "—" });
+  return rows;
+}
