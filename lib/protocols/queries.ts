@@ -91,7 +91,7 @@ export interface VersionSummary {
 }
 
 /**
- * A protocol with its version history (newest first); technicians see approved versions only.
+ * A protocol with its version history (newest first). Technicians (who use the bench list) and admins are refused.
  * @example const { protocol, versions } = await getProtocolView(user, 3);
  */
 export async function getProtocolView(viewer: Viewer, protocolId: number): Promise<{ protocol: Protocol; versions: VersionSummary[]; canNewVersion: boolean }> {
@@ -132,7 +132,9 @@ export interface ProtocolListRow {
  * @example await listProtocols(user, { state: "in_review", population: "yeast" })
  */
 export async function listProtocols(viewer: Viewer, filter: ProtocolFilter = {}): Promise<ProtocolListRow[]> {
-  if (viewer.role === "admin" || viewer.role === "technician") assertVisible(viewer, "draft");
+  if (viewer.role === "admin" || viewer.role === "technician") {
+    throw new ForbiddenError("The protocol list shows drafts and reviews; technicians use the bench list of approved versions.");
+  }
   const q = db("protocols as p").orderBy("p.updated_at", "desc").orderBy("p.id", "desc").select("p.*");
   const matching = db("protocol_versions as m").whereRaw("m.protocol_id = p.id");
   if (filter.state) matching.where("m.state", filter.state);

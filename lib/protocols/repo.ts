@@ -100,9 +100,18 @@ export interface VersionPatch {
   contentHash?: string;
   engineVersion?: string;
   lastEditorId?: number;
-  submittedAt?: "now" | null;
-  approvedAt?: "now";
-  supersededAt?: "now";
+  submittedAt?: Date | null;
+  approvedAt?: Date;
+  supersededAt?: Date;
+}
+
+/**
+ * The database clock once (so every timestamp of one step agrees to the millisecond).
+ * @example const at = await dbNow(trx);
+ */
+export async function dbNow(trx: Conn): Promise<Date> {
+  const [rows] = await trx.raw("SELECT NOW(3) AS now");
+  return new Date((rows as { now: string | Date }[])[0].now);
 }
 
 /**
@@ -117,9 +126,9 @@ export async function updateVersion(trx: Conn, id: number, expectedLock: number,
   if (patch.contentHash) set.content_hash = patch.contentHash;
   if (patch.engineVersion) set.engine_version = patch.engineVersion;
   if (patch.lastEditorId) set.last_editor_id = patch.lastEditorId;
-  if (patch.submittedAt !== undefined) set.submitted_at = patch.submittedAt === "now" ? now : null;
-  if (patch.approvedAt) set.approved_at = now;
-  if (patch.supersededAt) set.superseded_at = now;
+  if (patch.submittedAt !== undefined) set.submitted_at = patch.submittedAt;
+  if (patch.approvedAt) set.approved_at = patch.approvedAt;
+  if (patch.supersededAt) set.superseded_at = patch.supersededAt;
   const changed = await trx("protocol_versions").where({ id, lock_version: expectedLock }).update(set);
   return changed === 1;
 }
@@ -138,9 +147,10 @@ export async function editorIds(conn: Conn, version: Pick<ProtocolVersion, "id" 
 /** Inserts a signature; returns its id. */
 export async function insertSignature(
   trx: Conn,
-  s: { versionId: number; signerId: number; signerRole: string; meaning: string; contentHash: string },
+  s: { versionId: number; signerId: number; signerRole: string; meaning: string; contentHash: string; signedAt: Date },
 ): Promise<number> {
   const [id] = await trx("signatures").insert({
+    signed_at: s.signedAt,
     version_id: s.versionId,
     signer_id: s.signerId,
     signer_role: s.signerRole,

@@ -60,15 +60,16 @@ export async function approveVersion(actor: Actor, raw: unknown): Promise<{ vers
     const integrity = checkIntegrity(before.rawContent, before.contentHash, []);
     if (!integrity.ok) throw new ConflictError(`Version ${before.number} cannot be signed: ${integrity.problems.join(" ")}`);
     const protocol = (await repo.findProtocol(trx, before.protocolId))!;
-    const signatureId = await repo.insertSignature(trx, { versionId: before.id, signerId: actor.id, signerRole: actor.role, meaning: input.meaning, contentHash: integrity.computed });
+    const at = await repo.dbNow(trx);
+    const signatureId = await repo.insertSignature(trx, { versionId: before.id, signerId: actor.id, signerRole: actor.role, meaning: input.meaning, contentHash: integrity.computed, signedAt: at });
     const superseded: number[] = [];
     for (const old of await repo.approvedVersionsForUpdate(trx, protocol.id, before.id)) {
-      await repo.updateVersion(trx, old.id, old.lockVersion, { state: "superseded", supersededAt: "now" });
+      await repo.updateVersion(trx, old.id, old.lockVersion, { state: "superseded", supersededAt: at });
       const now = (await repo.findVersion(trx, old.id))!;
       superseded.push(old.number);
       await recordAudit(trx, { actor, action: "protocol_version.supersede", entityType: "protocol_version", entityId: old.id, summary: `${protocol.code} v${old.number}: superseded by v${before.number}`, before: auditSnapshot(old), after: auditSnapshot(now) });
     }
-    await repo.updateVersion(trx, before.id, before.lockVersion, { state: "approved", approvedAt: "now" });
+    await repo.updateVersion(trx, before.id, before.lockVersion, { state: "approved", approvedAt: at });
     const after = (await repo.findVersion(trx, before.id))!;
     const signature = (await repo.listSignatures(trx, [before.id])).find((s) => s.id === signatureId)!;
     await repo.touchProtocol(trx, protocol.id);

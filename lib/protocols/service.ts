@@ -162,7 +162,7 @@ export async function submitVersion(actor: Actor, raw: unknown): Promise<Protoco
       throw new InputError(parsed.error.issues.map((i) => ({ path: `content.${i.path.join(".")}`, message: i.message })), "The draft's content is incomplete; fix it before submitting.");
     }
     const protocol = (await repo.findProtocol(trx, before.protocolId))!;
-    await repo.updateVersion(trx, before.id, before.lockVersion, { state: "in_review", submittedAt: "now", contentHash: contentHash(before.rawContent) });
+    await repo.updateVersion(trx, before.id, before.lockVersion, { state: "in_review", submittedAt: await repo.dbNow(trx), contentHash: contentHash(before.rawContent) });
     const after = (await repo.findVersion(trx, before.id))!;
     await repo.touchProtocol(trx, protocol.id);
     await recordAudit(trx, { actor, action: "protocol_version.submit", entityType: "protocol_version", entityId: before.id, summary: `${protocol.code} v${before.number}: submitted for review`, before: auditSnapshot(before), after: auditSnapshot(after) });
