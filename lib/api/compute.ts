@@ -13,6 +13,8 @@ import {
   type SpectraResult,
   type SweepRequest,
 } from "@/lib/dielectric";
+import { errorResponse } from "@/lib/http/api";
+import { SPECTRA_EXAMPLE, VIABLE_CELL } from "./examples";
 
 /** Sweep result as sent over JSON: `re[i * frequencies.length + j]` is conductivity i (S/m), frequency j (Hz). */
 export interface SweepResponse {
@@ -47,4 +49,18 @@ export function computeSweep(body: unknown): SweepResponse {
     conductivities: result.conductivities,
     particles: result.particles.map((p) => ({ id: p.id, re: Array.from(p.re) })),
   };
+}
+
+/**
+ * The server's real 400 answer to the spectra example with a negative radius, shown on the API page.
+ * @example await sampleValidationError().json() // → { error: "invalid_input", message: "…", issues: [{ path: "particles[0].radius", … }] }
+ */
+export function sampleValidationError(): Response {
+  const body = { ...SPECTRA_EXAMPLE.body, particles: [{ ...VIABLE_CELL, radius: -5e-6 }] };
+  try {
+    computeSpectra(body);
+  } catch (err) {
+    return errorResponse(err);
+  }
+  throw new Error("the sample invalid request was accepted; the engine's radius rule has changed");
 }

@@ -10,10 +10,10 @@ import { ROUTE_DOCS, type JsonSchema, type RouteDoc } from "./routes";
 
 /** Error codes the API answers with, and the HTTP status of each. */
 export const ERROR_RESPONSES = {
-  "400": { code: "invalid_input", description: "The body is not valid JSON, or a field breaks a rule. `issues` lists each field (path) and what is wrong (message), including grids over the cap." },
+  "400": { code: "invalid_input", description: "The body is not valid JSON, or a field breaks a rule. The issues list names each field (path) and what is wrong (message), including grids over the cap." },
   "401": { code: "unauthenticated", description: "No session and no token, a malformed Authorization header, or a token that is unknown or revoked." },
   "403": { code: "forbidden", description: "Signed in, but the role may not use the computation API (technicians and admins)." },
-  "413": { code: "too_large", description: `The body is larger than ${MAX_JSON_BYTES} bytes.` },
+  "413": { code: "too_large", description: `The body is larger than ${MAX_JSON_BYTES / 1048576} MiB (${MAX_JSON_BYTES} bytes).` },
   "429": { code: "rate_limited", description: "Too many requests for this token in the current minute; wait for the number of seconds in the Retry-After header." },
 } as const;
 
