@@ -26,12 +26,14 @@ import { scaleRecipe } from "./recipe";
 import { STATE_WORDS, type BenchSheetLayout, type BenchSheetOptions, type BenchSheetSource, type SheetBlock, type SheetSection } from "./types";
 
 /**
- * Whether the version may be used at the bench: approved, signed, and every signature's hash equals the content hash.
+ * Whether the version may be used at the bench: approved, signed, every signature's hash equals the content hash, and
+ * the stored content still hashes to what was recorded.
  * @example isBenchReady({ ...source, version: { ...source.version, state: "draft" } }) // false
  */
 export function isBenchReady(source: BenchSheetSource): boolean {
   const { version, signatures } = source;
-  return version.state === "approved" && signatures.length > 0 && signatures.every((s) => s.contentHash === version.contentHash);
+  const intact = (source.integrityProblems ?? []).length === 0;
+  return intact && version.state === "approved" && signatures.length > 0 && signatures.every((s) => s.contentHash === version.contentHash);
 }
 
 function roleWord(role: string): string {
@@ -43,7 +45,7 @@ function statusSection(source: BenchSheetSource, options: BenchSheetOptions, rea
   const state = STATE_WORDS[version.state];
   const blocks: SheetBlock[] = [];
   if (!ready) {
-    const mismatch = version.state === "approved" && signatures.some((s) => s.contentHash !== version.contentHash);
+    const mismatch = (source.integrityProblems ?? []).length > 0 || (version.state === "approved" && signatures.some((s) => s.contentHash !== version.contentHash));
     const why = mismatch
       ? "Its content does not match the content hash that was signed: do not use it, and tell QA."
       : version.state === "superseded" || version.state === "retired"

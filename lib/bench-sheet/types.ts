@@ -30,6 +30,8 @@ export interface BenchSheetSource {
   version: { id: number; number: number; state: BenchVersionState; contentHash: string; engineVersion: string };
   signatures: SheetSignature[];
   content: ProtocolContent;
+  /** Problems found when the stored content was re-hashed on read (empty when content and signatures agree). */
+  integrityProblems?: string[];
 }
 
 /** What the person printing chooses, and when it is printed. */

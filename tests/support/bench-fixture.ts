@@ -1,7 +1,7 @@
-import { createHash } from "node:crypto";
 import bcrypt from "bcryptjs";
 import type { Knex } from "knex";
 import { protocolContentSchema, type ProtocolContent } from "@/lib/protocols/content";
+import { contentHash } from "@/lib/protocols/hash";
 import type { BenchSheetSource, BenchVersionState } from "@/lib/bench-sheet/types";
 
 /**
@@ -74,8 +74,8 @@ export const BENCH_CONTENT: ProtocolContent = protocolContentSchema.parse({
   plan: { engineVersion: "fixture-1", seed: 42, request: {}, result: {} },
 });
 
-/** SHA-256 of the fixture content's JSON (hex), used as its content hash. */
-export const BENCH_CONTENT_HASH = createHash("sha256").update(JSON.stringify(BENCH_CONTENT)).digest("hex");
+/** The fixture content's hash (SHA-256 of its canonical JSON, as the lifecycle computes it). */
+export const BENCH_CONTENT_HASH = contentHash(BENCH_CONTENT);
 
 /**
  * A bench-sheet source built from the fixture without a database.
