@@ -1,0 +1,51 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { FitWorkbench } from "@/components/library/fit-workbench";
+import { requirePageUser } from "@/lib/auth/session";
+import { NotFoundError } from "@/lib/errors";
+import { exampleCrossoverCsv } from "@/lib/fitting";
+import type { PopulationContent } from "@/lib/library/populations/content";
+import { getItem } from "@/lib/library/service";
+import { fromSI, tidy } from "@/lib/units/lab";
+
+export const metadata: Metadata = { title: "Fit from crossovers" };
+
+async function load(id: number) {
+  try {
+    return await getItem("populations", id);
+  } catch (err) {
+    if (err instanceof NotFoundError) notFound();
+    throw err;
+  }
+}
+
+export default async function FitPage({ params }: { params: Promise<{ kind: string; id: string }> }) {
+  const { kind, id: idText } = await params;
+  if (kind !== "populations" || !/^\d+$/.test(idText)) notFound();
+  await requirePageUser("library.edit");
+  const item = await load(Number(idText));
+  const content = item.current.content as PopulationContent;
+  return (
+    <div className="space-y-5">
+      <p className="text-sm"><Link href={`/library/populations/${item.id}`}>← {item.name}</Link></p>
+      <header>
+        <h1>Fit membrane parameters: {item.name}</h1>
+        <p className="mt-1 max-w-3xl text-ink-soft">Membrane capacitance and conductance from first crossover frequencies measured at several medium conductivities, by non-linear least squares with 95 % confidence intervals.</p>
+      </header>
+      {content.spec.membrane ? (
+        <FitWorkbench
+          id={item.id}
+          baseVersion={item.currentVersion}
+          name={item.name}
+          radiusUm={tidy(fromSI("um", content.spec.radius.mean), 4)}
+          currentC={content.spec.membrane.capacitance.mean}
+          currentG={content.spec.membrane.conductance.mean}
+          exampleCsv={exampleCrossoverCsv()}
+        />
+      ) : (
+        <p className="notice">This population uses the {content.spec.model} model, which has no membrane. Change it to a cell model first.</p>
+      )}
+    </div>
+  );
+}

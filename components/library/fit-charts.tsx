@@ -1,0 +1,62 @@
+"use client";
+
+import { VictoryArea, VictoryAxis, VictoryChart, VictoryLabel, VictoryLine, VictoryScatter } from "victory";
+import type { MembraneFit } from "@/lib/fitting";
+import { fromSI } from "@/lib/units/lab";
+
+const AXIS = { tickLabels: { fontSize: 11, fill: "#3e4c59" }, axisLabel: { fontSize: 12, fill: "#1f2933" }, grid: { stroke: "#d9d4c7", strokeDasharray: "2 4" } };
+
+function decades(lo: number, hi: number): number[] {
+  const out: number[] = [];
+  for (let e = Math.floor(Math.log10(lo)); e <= Math.ceil(Math.log10(hi)); e++) for (const m of [1, 2, 5]) {
+    const v = m * 10 ** e;
+    if (v >= lo * 0.999 && v <= hi * 1.001) out.push(v);
+  }
+  return out;
+}
+
+const mS = (s: number) => fromSI("mS_m", s);
+const kHz = (hz: number) => fromSI("kHz", hz);
+
+/** Measured crossovers (circles) against the fitted single-shell curve (line) with its 95 % band, both axes logarithmic. */
+export function FitCurveChart({ fit }: { fit: MembraneFit }) {
+  const pts = fit.residuals.map((r) => ({ x: mS(r.conductivity), y: kHz(r.observed), row: r.rowNumber }));
+  const curve = fit.curve.points.filter((p) => p.crossoverFrequency !== null).map((p) => ({ x: mS(p.conductivity), y: kHz(p.crossoverFrequency!) }));
+  const band = fit.curve.points.filter((p) => p.lower !== null && p.upper !== null && p.lower > 0).map((p) => ({ x: mS(p.conductivity), y: kHz(p.upper!), y0: kHz(p.lower!) }));
+  const xs = [...pts.map((p) => p.x), ...curve.map((p) => p.x)];
+  const ys = [...pts.map((p) => p.y), ...curve.map((p) => p.y)];
+  const x: [number, number] = [Math.min(...xs) * 0.8, Math.max(...xs) * 1.25];
+  const y: [number, number] = [Math.min(...ys) * 0.8, Math.max(...ys) * 1.25];
+  return (
+    <figure className="m-0" data-testid="fit-curve-chart">
+      <figcaption className="text-sm font-medium">Measured crossovers and the fitted curve</figcaption>
+      <VictoryChart scale={{ x: "log", y: "log" }} domain={{ x, y }} width={560} height={300} padding={{ top: 12, bottom: 48, left: 64, right: 16 }}>
+        <VictoryAxis tickValues={decades(x[0], x[1])} tickFormat={(t: number) => String(t)} label="Medium conductivity (mS/m, log scale)" axisLabelComponent={<VictoryLabel dy={8} />} style={AXIS} />
+        <VictoryAxis dependentAxis tickValues={decades(y[0], y[1])} tickFormat={(t: number) => String(t)} label="First crossover (kHz, log scale)" axisLabelComponent={<VictoryLabel dy={-30} />} style={AXIS} />
+        {band.length > 1 && <VictoryArea data={band} style={{ data: { fill: "#2f4f8f", fillOpacity: 0.15, stroke: "none" } }} />}
+        <VictoryLine data={curve} style={{ data: { stroke: "#2f4f8f", strokeWidth: 2 } }} />
+        <VictoryScatter data={pts} size={4.5} style={{ data: { fill: "#ffffff", stroke: "#1f2933", strokeWidth: 1.6 } }} />
+      </VictoryChart>
+      <p className="text-xs text-ink-soft">Circles: measured rows. Solid line: fitted single-shell relation; shaded: its 95 % confidence band.</p>
+    </figure>
+  );
+}
+
+/** Residuals in per cent of each measured crossover against conductivity, with the zero line. */
+export function ResidualsChart({ fit }: { fit: MembraneFit }) {
+  const pts = fit.residuals.map((r) => ({ x: mS(r.conductivity), y: r.relativeResidual * 100, label: r.rowNumber ? `row ${r.rowNumber}` : "" }));
+  const xs = pts.map((p) => p.x);
+  const x: [number, number] = [Math.min(...xs) * 0.8, Math.max(...xs) * 1.25];
+  const m = Math.max(1, ...pts.map((p) => Math.abs(p.y))) * 1.3;
+  return (
+    <figure className="m-0" data-testid="residuals-chart">
+      <figcaption className="text-sm font-medium">Residuals (measured − fitted, % of measured)</figcaption>
+      <VictoryChart scale={{ x: "log", y: "linear" }} domain={{ x, y: [-m, m] }} width={560} height={220} padding={{ top: 12, bottom: 48, left: 64, right: 16 }}>
+        <VictoryAxis tickValues={decades(x[0], x[1])} tickFormat={(t: number) => String(t)} label="Medium conductivity (mS/m, log scale)" axisLabelComponent={<VictoryLabel dy={8} />} style={AXIS} />
+        <VictoryAxis dependentAxis tickFormat={(t: number) => `${t.toFixed(Math.abs(m) < 5 ? 1 : 0)} %`} label="Residual" axisLabelComponent={<VictoryLabel dy={-30} />} style={AXIS} />
+        <VictoryLine data={[{ x: x[0], y: 0 }, { x: x[1], y: 0 }]} style={{ data: { stroke: "#1f2933", strokeWidth: 1 } }} />
+        <VictoryScatter data={pts} size={4} symbol="diamond" labels={({ datum }: { datum: { label: string } }) => datum.label} labelComponent={<VictoryLabel dy={-9} style={{ fontSize: 9, fill: "#616e7c" }} />} style={{ data: { fill: "#a4471c" } }} />
+      </VictoryChart>
+    </figure>
+  );
+}
