@@ -42,7 +42,7 @@ export function ExampleRunner({ path, body, operationId }: { path: string; body:
   const [text, setText] = useState(() => JSON.stringify(body, null, 2));
   const mutation = useMutation({ mutationFn: () => run(path, text) });
   const result = mutation.data;
-  const serverMs = result?.serverTiming?.match(/dur=([\d.]+)/)?.[1];
+  const serverMs = result?.serverTiming?.match(/app;dur=([\d.]+)/)?.[1];
 
   return (
     <div className="space-y-3" data-testid={`runner-${operationId}`}>

@@ -79,7 +79,7 @@ function operation(route: RouteDoc): Record<string, unknown> {
         description: "The result, SI units.",
         headers: {
           [ENGINE_VERSION_HEADER]: { description: "Version of the dielectric engine that computed the result.", schema: { type: "string" } },
-          "Server-Timing": { description: "app;dur=<ms>: time the server spent on the request.", schema: { type: "string" } },
+          "Server-Timing": { description: "Milliseconds the server spent: read (body), compute (validation and engine), serialize (JSON), app (the whole request, authentication included).", schema: { type: "string" } },
         },
         content: { "application/json": { schema: { $ref: `#/components/schemas/${route.responseName}` } } },
       },

@@ -1,10 +1,10 @@
 import { computeSpectra } from "@/lib/api/compute";
-import { computeResponse, withServerTiming } from "@/lib/api/respond";
-import { apiRoute, readJson } from "@/lib/http/api";
+import { computeJson, withServerTiming } from "@/lib/api/respond";
+import { apiRoute } from "@/lib/http/api";
 
 export const runtime = "nodejs";
 
 /** POST /api/v1/spectra — Re[K], Im[K] and crossovers of each particle in one medium (SI units). */
 export const POST = withServerTiming(
-  apiRoute("api.compute", async (req) => computeResponse(computeSpectra(await readJson(req)))),
+  apiRoute("api.compute", (req) => computeJson(req, computeSpectra)),
 );
