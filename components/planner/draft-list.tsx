@@ -1,0 +1,46 @@
+import Link from "next/link";
+import { discardDraftAction } from "@/lib/planner-wizard/actions";
+import { STEPS, type StepSlug } from "@/lib/planner-wizard/steps";
+
+/** One row of the landing page's draft list. */
+export interface DraftSummary {
+  id: number;
+  title: string;
+  currentStep: StepSlug;
+  updatedAt: string;
+  done: StepSlug[];
+  savedProtocolId: number | null;
+}
+
+const stepTitle = (slug: StepSlug) => STEPS.find((s) => s.slug === slug)?.title ?? slug;
+
+/** The user's planner drafts with where each stands and a link to resume it. */
+export function DraftList({ drafts }: { drafts: DraftSummary[] }) {
+  if (drafts.length === 0) return <p className="text-sm text-ink-muted">No plans yet. Start one above.</p>;
+  return (
+    <table>
+      <thead>
+        <tr><th scope="col">Plan</th><th scope="col">Steps done</th><th scope="col">Resume at</th><th scope="col">Last change</th><th scope="col"><span className="sr-only">Actions</span></th></tr>
+      </thead>
+      <tbody>
+        {drafts.map((d) => (
+          <tr key={d.id} data-testid="planner-draft-row">
+            <td>
+              <Link href={`/planner/${d.id}/${d.currentStep}`}>{d.title}</Link>
+              {d.savedProtocolId !== null && <p className="hint">Saved as a protocol draft — <Link href="/protocols">see protocols</Link></p>}
+            </td>
+            <td>{d.done.length} of {STEPS.length - 1}</td>
+            <td>{stepTitle(d.currentStep)}</td>
+            <td><time dateTime={d.updatedAt}>{new Date(d.updatedAt).toISOString().slice(0, 16).replace("T", " ")} UTC</time></td>
+            <td className="text-right">
+              <form action={discardDraftAction}>
+                <input type="hidden" name="draftId" value={d.id} />
+                <button className="btn-quiet text-xs" type="submit" aria-label={`Discard plan ${d.title}`}>Discard</button>
+              </form>
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}

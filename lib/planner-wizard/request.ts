@@ -1,0 +1,106 @@
+import { waterPermittivity } from "@/lib/dielectric";
+import type { WindowsRequest } from "@/lib/planner/schema";
+import { bufferChoice, bufferStepSchema, type BufferStepValues } from "./buffer-form";
+import { deviceStepSchema, meanFlowSpeed, type DeviceStepValues } from "./device-form";
+import { limitsStepSchema, type LimitsStepValues } from "./limits-form";
+import type { WizardInputs } from "./mapper";
+import { populationsStepSchema, type PopulationsStepOutput } from "./population-form";
+
+/** Seed every plan uses unless the user changes it, so a saved version reproduces exactly. */
+export const DEFAULT_SEED = 20261201;
+
+/** Frequencies every plan sweeps: 1 kHz–100 MHz, 121 log-spaced points (24 per decade). */
+export const PLAN_FREQUENCIES = { start: 1e3, stop: 1e8, points: 121 } as const;
+
+/** The validated inputs of steps 1–4, or the first step that is not ready and why. */
+export type ReadyInputs =
+  | { ok: true; populations: PopulationsStepOutput; buffer: BufferStepValues; device: DeviceStepValues; limits: LimitsStepValues }
+  | { ok: false; step: "populations" | "buffer" | "device" | "limits"; message: string };
+
+/**
+ * Checks steps 1–4 of a draft with their schemas (the same ones the forms use).
+ * @example const ready = readyInputs(draft.inputs); if (!ready.ok) redirect(`…/${ready.step}`);
+ */
+export function readyInputs(inputs: WizardInputs): ReadyInputs {
+  const pops = populationsStepSchema.safeParse(inputs.populations);
+  if (!pops.success) return { ok: false, step: "populations", message: pops.error.issues[0]?.message ?? "Populations are incomplete." };
+  const buffer = bufferStepSchema.safeParse(inputs.buffer);
+  if (!buffer.success) return { ok: false, step: "buffer", message: buffer.error.issues[0]?.message ?? "The buffer is incomplete." };
+  const device = deviceStepSchema.safeParse(inputs.device);
+  if (!device.success) return { ok: false, step: "device", message: device.error.issues[0]?.message ?? "The device is incomplete." };
+  const limits = limitsStepSchema.safeParse(inputs.limits);
+  if (!limits.success) return { ok: false, step: "limits", message: limits.error.issues[0]?.message ?? "The limits are incomplete." };
+  return { ok: true, populations: pops.data, buffer: inputs.buffer as BufferStepValues, device: inputs.device as DeviceStepValues, limits: limits.data as LimitsStepValues };
+}
+
+/** Conductivity grid searched around a fixed buffer for the map: a decade either side, 41 points. */
+export function mapConductivities(sigma: number): { start: number; stop: number; points: number } {
+  return { start: sigma / 10, stop: sigma * 10, points: 41 };
+}
+
+/**
+ * Conductivity at the operating temperature from a 25 °C value (2 %/K, PHYSICS.md §4, common practice).
+ * @example atOperating(0.01, 37) // 0.0124 S/m
+ */
+export function atOperating(sigma25: number, temperatureC: number): number {
+  return sigma25 * (1 + 0.02 * (temperatureC - 25));
+}
+
+/**
+ * Builds the planner request (SI, `windowsRequestSchema`) from validated step inputs. A fixed buffer gives a fixed
+ * conductivity (windows at that conductivity); a range gives a log sweep of 31 conductivities.
+ * @example toWindowsRequest(ready).device.maxVoltageVpp // 20
+ */
+export function toWindowsRequest(r: Extract<ReadyInputs, { ok: true }>, seed = DEFAULT_SEED): WindowsRequest {
+  const { populations, buffer, device, limits } = r;
+  const choice = bufferChoice(buffer);
+  const t = device.operatingTemperatureC;
+  const um = (x: number) => x * 1e-6;
+  const medium: WindowsRequest["medium"] = {
+    temperatureC: t,
+    permittivity: waterPermittivity(t),
+    ...(choice.relativeViscosity ? { relativeViscosity: Math.max(1, choice.relativeViscosity) } : {}),
+    ...(choice.osmolality !== null ? { osmolality: choice.osmolality } : {}),
+    ...(choice.range25
+      ? { conductivityRange: { start: atOperating(choice.range25.low, t), stop: atOperating(choice.range25.high, t), points: 31 } }
+      : { conductivity: atOperating(choice.conductivity25 ?? 0.01, t) }),
+  };
+  const geometry: WindowsRequest["device"]["geometry"] =
+    device.geometry === "interdigitated"
+      ? { kind: "interdigitated", electrodeWidth: um(device.electrodeWidth), electrodeGap: um(device.electrodeGap), height: um(device.evalHeight) }
+      : { kind: "user", gamma: device.gamma, electrodeGap: um(device.electrodeGap) };
+  const drive =
+    device.drive === "speed"
+      ? { targetDepSpeed: um(device.targetSpeed) }
+      : { flowSpeed: meanFlowSpeed(device.flowRate, device.channelWidth, device.channelHeight), electrodeArrayLength: device.arrayLength * 1e-3 };
+  const sortDesign: WindowsRequest["sortDesign"] =
+    limits.sortDesign === "capture-target" ? { kind: "capture", captured: "target" }
+      : limits.sortDesign === "capture-other" ? { kind: "capture", captured: "other" }
+        : { kind: limits.sortDesign };
+  return {
+    populations: [
+      { id: "target", name: populations.target.name, spec: populations.target.spec },
+      { id: "other", name: populations.other.name, spec: populations.other.spec },
+    ],
+    targetId: "target",
+    medium,
+    frequencies: { ...PLAN_FREQUENCIES },
+    device: { geometry, maxVoltageVpp: device.maxVoltageVpp, channelHeight: um(device.channelHeight), ...drive },
+    constraints: {
+      maxTemperatureRise: limits.maxTemperatureRise,
+      maxElectrothermalRatio: limits.maxElectrothermalRatio,
+      maxTransmembranePotential: limits.maxTransmembranePotential,
+      maxAcElectroosmosis: limits.maxAcElectroosmosis,
+      osmolalityMin: limits.osmolalityMin / 1000,
+      osmolalityMax: limits.osmolalityMax / 1000,
+      minRecovery: limits.minRecoveryPercent / 100,
+      minPurity: limits.minPurityPercent / 100,
+    },
+    separation: { margin: limits.margin, slowCellQuantile: limits.slowCellPercent / 100 },
+    sortDesign,
+    inputMix: { targetFraction: limits.targetPercent / 100 },
+    seed,
+    samplesPerPopulation: 300,
+    topN: 10,
+  };
+}
