@@ -1,6 +1,9 @@
 import type { Knex } from "knex";
 import * as m001 from "./20261201_001_foundation";
 import * as m002 from "./20261201_002_api_tokens";
+import * as m003 from "./20261201_003_protocols";
+import * as m004 from "./20261201_004_libraries";
+import * as m005 from "./20261201_005_bench_runs";
 import * as m006 from "./20261201_006_wizard_drafts";
 
 /**
@@ -10,6 +13,9 @@ import * as m006 from "./20261201_006_wizard_drafts";
 const MIGRATIONS: [string, Knex.Migration][] = [
   ["20261201_001_foundation", m001],
   ["20261201_002_api_tokens", m002],
+  ["20261201_003_protocols", m003],
+  ["20261201_004_libraries", m004],
+  ["20261201_005_bench_runs", m005],
   ["20261201_006_wizard_drafts", m006],
 ];
 
