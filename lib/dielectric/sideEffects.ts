@@ -64,16 +64,28 @@ export interface AceoAssessment {
 }
 
 /**
- * AC electro-osmosis regime (common practice): likely from 100 Hz to 100 kHz in media up to 0.1 S/m; possible
- * from 10 Hz to 1 MHz up to 1 S/m; unlikely otherwise.
+ * AC electro-osmosis regime as a number, 0 = unlikely, 1 = possible, 2 = likely (common practice): likely from
+ * 100 Hz to 100 kHz in media up to 0.1 S/m; possible from 10 Hz to 1 MHz up to 1 S/m; unlikely otherwise.
+ * @param frequencyHz Hz; @param conductivity S/m
+ * @example acElectroosmosisRank(1e4, 0.01) // → 2
+ */
+export function acElectroosmosisRank(frequencyHz: number, conductivity: number): 0 | 1 | 2 {
+  if (frequencyHz >= 100 && frequencyHz <= 1e5 && conductivity <= 0.1) return 2;
+  if (frequencyHz >= 10 && frequencyHz <= 1e6 && conductivity <= 1) return 1;
+  return 0;
+}
+
+/**
+ * AC electro-osmosis regime with a severity and a message (see `acElectroosmosisRank` for the bands).
  * @param frequencyHz Hz; @param conductivity S/m
  * @example acElectroosmosis(1e4, 0.01).regime // → "likely"
  */
 export function acElectroosmosis(frequencyHz: number, conductivity: number): AceoAssessment {
-  if (frequencyHz >= 100 && frequencyHz <= 1e5 && conductivity <= 0.1) {
+  const rank = acElectroosmosisRank(frequencyHz, conductivity);
+  if (rank === 2) {
     return { regime: "likely", severity: "warning", message: "AC electro-osmotic flow on the electrodes is likely (100 Hz–100 kHz in a low-conductivity medium); it can sweep cells and mask DEP" };
   }
-  if (frequencyHz >= 10 && frequencyHz <= 1e6 && conductivity <= 1) {
+  if (rank === 1) {
     return { regime: "possible", severity: "caution", message: "AC electro-osmotic flow on the electrodes is possible at this frequency and conductivity" };
   }
   return { regime: "unlikely", severity: "ok", message: "AC electro-osmosis is unlikely at this frequency and conductivity" };

@@ -1,0 +1,17 @@
+/**
+ * Sievewright planner: population spreads, per-point recovery and purity for a sort design, drive voltage and
+ * side-effect constraints, ranked operating windows and their sensitivity. Pure library code, SI units.
+ */
+export { planWindows, PLANNER_VERSION, assumptions, crossoverCurve, type WindowsResult } from "./plan";
+export { sensitivity, type SensitivityResult, type SensitivityItem, type WindowRef, type Band } from "./sensitivity";
+export { windowsRequestSchema, populationSpecSchema, POPULATION_MODELS, PLANNER_LIMITS, type WindowsRequest, type PopulationSpec, type PopulationEntry, type SpreadParameter } from "./schema";
+export { defaultConstraints, defaultSeparation, DEFAULT_TARGET_SPEED, resolveConstraints, resolveSeparation, type Constraints, type SeparationSettings } from "./constraints";
+export { describeDesign, purity, type SortDesign } from "./design";
+export { SCORE_WEIGHTS, findRuns, type OperatingWindow, type ScorePart, type Run } from "./windows";
+export { MODEL_PREDICTION_WARNING, type PlannerWarning, type WarningSeverity } from "./warnings";
+export { evaluateGrid, LIMITED_BY, type GridResult, type GridSetup, type LimitedBy, type PopulationSample } from "./evaluate";
+export { resolveRequest, buildSetup, REQUEST_DEFAULTS, type ResolvedRequest } from "./prepare";
+export { samplePopulation, particleFrom, presentParameters, drawValue, withMean, spreadAt, SPREAD_PARAMETERS, type SpreadPath } from "./populations";
+export { mulberry32, fmix32, streamSeed, normalSource } from "./prng";
+export { kthSmallest } from "./select";
+export { EngineValidationError } from "@/lib/dielectric";

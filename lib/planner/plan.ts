@@ -1,0 +1,174 @@
+/**
+ * `planWindows`: from two populations, a medium and a device, the sweep map of predicted separation, both
+ * populations' crossover curves, and the ranked operating windows with drive, performance and warnings.
+ */
+import { compileParticle, crossoverFrequencies, ENGINE_VERSION, vppToVrms } from "@/lib/dielectric";
+import type { Constraints, SeparationSettings } from "./constraints";
+import { describeDesign, type SortDesign } from "./design";
+import { evaluateGrid, type GridResult } from "./evaluate";
+import { particleFrom } from "./populations";
+import { buildSetup, resolveRequest, type ResolvedRequest } from "./prepare";
+import type { WindowsRequest } from "./schema";
+import { MODEL_PREDICTION_WARNING, type PlannerWarning } from "./warnings";
+import { rankWindows, type OperatingWindow, type WindowContext } from "./windows";
+
+/** Planner version (semver), saved with results next to the engine version. */
+export const PLANNER_VERSION = "1.0.0";
+
+/** Result of `planWindows`; plain JSON (numbers, strings, arrays, objects, null). */
+export interface WindowsResult {
+  engineVersion: string;
+  plannerVersion: string;
+  model: {
+    design: SortDesign & { description: string };
+    targetId: string;
+    otherId: string;
+    targetFraction: number;
+    seed: number;
+    samplesPerPopulation: number;
+    constraints: Constraints;
+    separation: SeparationSettings;
+    medium: { temperatureC: number; permittivity: number; viscosity: number; thermalConductivity: number; osmolality: number | null };
+    device: { source: string; approximation: string; gamma: number; fieldPerVolt: number; maxVoltageVpp: number; maxVoltageRms: number };
+    targetSpeed: { value: number; source: string };
+    assumptions: string[];
+  };
+  grid: { frequencies: number[]; conductivities: number[]; layout: string };
+  map: {
+    separationScore: number[];
+    feasible: number[];
+    recovery: number[];
+    purity: number[];
+    voltageRms: number[];
+    fractions: { populationId: string; positive: number[]; negative: number[] }[];
+  };
+  crossovers: { populationId: string; byConductivity: number[][] }[];
+  windows: OperatingWindow[];
+  windowCount: number;
+  warnings: PlannerWarning[];
+}
+
+const round4 = (a: ArrayLike<number>) => Array.from(a, (x) => Math.round(x * 1e4) / 1e4);
+const sig4 = (a: ArrayLike<number>) => Array.from(a, (x) => (Number.isFinite(x) ? Number.parseFloat(x.toPrecision(4)) : null)) as number[];
+
+/** The model statements every result carries. */
+export function assumptions(r: ResolvedRequest): string[] {
+  return [
+    "Re[K] from the Clausius–Mossotti factor of concentric smeared shells (Irimajiri, Hanai & Inouye 1979; Huang et al. 1992); DEP force in the dipole approximation.",
+    `Each population is ${r.samples} cells drawn from the stated spreads (normal or log-normal, truncated to physical values) with seed ${r.seed}; the same inputs and seed give the same numbers.`,
+    `A cell counts as moving one way when |Re[K]| exceeds the margin ${r.separation.margin}; it counts as reaching its outlet when, in addition, its Stokes DEP speed reaches ${r.targetSpeed} m/s.`,
+    `The voltage at each point is the one that brings the slowest ${(r.separation.slowCellQuantile * 100).toFixed(0)} % of the cells that must move up to the target speed, lowered if needed to the generator limit and to the heating, transmembrane-potential and electrothermal limits.`,
+    `Field gradient: ${r.field.approximation}`,
+    "Medium conductivity values are at the operating temperature. Joule heating ΔT ≈ σV²/(8k) (Ramos et al. 1998); electrothermal speed is an order-of-magnitude scaling estimate; AC electro-osmosis by frequency/conductivity regime.",
+    "Induced transmembrane potential (Schwan) on the target's mean cell at the field in the electrode gap (V/gap).",
+    "These are model predictions: verify on the bench and follow your institution's biosafety and electrical-safety rules.",
+  ];
+}
+
+/**
+ * Crossover frequencies (Hz) of a population's mean cell at each conductivity, within the grid's frequency range.
+ * @example crossoverCurve(entry.spec, [0.001, 0.01], 78.3, 1e3, 1e9) // → [[6.4e3, 1.4e8], [6.3e4, 1.4e8]]
+ */
+export function crossoverCurve(spec: Parameters<typeof particleFrom>[1], conductivities: number[], permittivity: number, fmin: number, fmax: number): number[][] {
+  const cp = compileParticle(particleFrom("mean", spec));
+  return conductivities.map((s) => crossoverFrequencies(cp, { permittivity, conductivity: s }, { start: fmin, stop: fmax }));
+}
+
+/** Context for building windows from a resolved request and its crossovers. */
+export function windowContext(r: ResolvedRequest, frequencies: number[], conductivities: number[], specs?: Record<string, Parameters<typeof particleFrom>[1]>): WindowContext {
+  const pops = [r.target, r.other];
+  return {
+    frequencies,
+    conductivities,
+    targetId: r.target.id,
+    otherId: r.other.id,
+    constraints: r.constraints,
+    maxVoltageRms: vppToVrms(r.maxVoltageVpp),
+    crossovers: pops.map((p) => ({
+      populationId: p.id,
+      byConductivity: crossoverCurve(specs?.[p.id] ?? p.spec, conductivities, r.mediumPermittivity, frequencies[0], frequencies[frequencies.length - 1]),
+    })),
+  };
+}
+
+function globalWarnings(r: ResolvedRequest, g: GridResult, windows: OperatingWindow[]): PlannerWarning[] {
+  const out: PlannerWarning[] = [MODEL_PREDICTION_WARNING];
+  const c = r.constraints;
+  if (r.osmolality !== null && (r.osmolality < c.osmolalityMin || r.osmolality > c.osmolalityMax)) {
+    out.push({
+      code: "osmolality",
+      severity: "danger",
+      message: `The medium's osmolality ${(r.osmolality * 1000).toFixed(0)} mOsm/kg is outside ${(c.osmolalityMin * 1000).toFixed(0)}–${(c.osmolalityMax * 1000).toFixed(0)} mOsm/kg, so no operating point is accepted.`,
+      value: r.osmolality,
+      limit: r.osmolality < c.osmolalityMin ? c.osmolalityMin : c.osmolalityMax,
+      advice: "Adjust the sugar content of the buffer (about 8.5 % w/v sucrose + 0.3 % w/v glucose is near 290 mOsm/kg).",
+    });
+  }
+  if (windows.length === 0) {
+    let best = 0;
+    for (let k = 1; k < g.recovery.length; k++) if (g.recovery[k] * g.purity[k] > g.recovery[best] * g.purity[best]) best = k;
+    out.push({
+      code: "no-window",
+      severity: "warning",
+      message: `No operating window meets every constraint. Best point: ${r.frequencies[best % g.nf].toPrecision(3)} Hz at ${r.conductivities[Math.floor(best / g.nf)].toPrecision(3)} S/m with recovery ${g.recovery[best].toFixed(2)} and purity ${g.purity[best].toFixed(2)}.`,
+      value: g.recovery[best] * g.purity[best],
+      limit: c.minRecovery * c.minPurity,
+      advice: "Widen the conductivity range, lower the minimum recovery or purity, relax a side-effect limit, or try another sort design.",
+    });
+  }
+  return out;
+}
+
+/**
+ * Plan operating windows. Validates the request (throws `EngineValidationError`), samples both populations,
+ * evaluates the frequency × conductivity grid, and ranks the windows. Deterministic for a given request and seed.
+ * @example
+ * planWindows({
+ *   populations: [{ id: "live", spec: liveSpec }, { id: "dead", spec: deadSpec }],
+ *   medium: { conductivityRange: { start: 1e-3, stop: 0.1, points: 31 } },
+ *   device: { geometry: { kind: "interdigitated", electrodeWidth: 20e-6, electrodeGap: 20e-6 }, maxVoltageVpp: 20, channelHeight: 50e-6 },
+ * }).windows[0] // → { bandStart, bandStop, operatingPoint, voltage, recovery, purity, score, scoreParts, warnings, … }
+ */
+export function planWindows(req: WindowsRequest): WindowsResult {
+  const r = resolveRequest(req);
+  const setup = buildSetup(r);
+  const g = evaluateGrid(setup);
+  const ctx = windowContext(r, r.frequencies, r.conductivities);
+  const all = rankWindows(g, ctx);
+  const score = new Float64Array(g.recovery.length);
+  for (let k = 0; k < score.length; k++) score[k] = g.recovery[k] * g.purity[k];
+  return {
+    engineVersion: ENGINE_VERSION,
+    plannerVersion: PLANNER_VERSION,
+    model: {
+      design: { ...r.design, description: describeDesign(r.design) },
+      targetId: r.target.id,
+      otherId: r.other.id,
+      targetFraction: r.targetFraction,
+      seed: r.seed,
+      samplesPerPopulation: r.samples,
+      constraints: r.constraints,
+      separation: r.separation,
+      medium: { temperatureC: r.temperatureC, permittivity: r.mediumPermittivity, viscosity: r.viscosity, thermalConductivity: r.thermalConductivity, osmolality: r.osmolality },
+      device: { source: r.field.source, approximation: r.field.approximation, gamma: r.field.gamma, fieldPerVolt: r.field.fieldPerVolt, maxVoltageVpp: r.maxVoltageVpp, maxVoltageRms: setup.maxVoltageRms },
+      targetSpeed: { value: r.targetSpeed, source: r.targetSpeedSource },
+      assumptions: assumptions(r),
+    },
+    grid: { frequencies: r.frequencies, conductivities: r.conductivities, layout: "row-major: index i * frequencies.length + j is conductivity i, frequency j" },
+    map: {
+      separationScore: round4(score),
+      feasible: Array.from(g.feasible),
+      recovery: round4(g.recovery),
+      purity: round4(g.purity),
+      voltageRms: sig4(g.voltageRms),
+      fractions: [
+        { populationId: r.target.id, positive: round4(g.targetPositive), negative: round4(g.targetNegative) },
+        { populationId: r.other.id, positive: round4(g.otherPositive), negative: round4(g.otherNegative) },
+      ],
+    },
+    crossovers: ctx.crossovers,
+    windows: all.slice(0, r.topN),
+    windowCount: all.length,
+    warnings: globalWarnings(r, g, all),
+  };
+}

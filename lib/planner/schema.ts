@@ -1,0 +1,206 @@
+/**
+ * Request schema of `planWindows` (zod). SI units throughout; the generator limit is given peak-to-peak (Vpp),
+ * as function generators are labelled, and results report both Vrms and Vpp.
+ *
+ * A population's `spec` has the same shape as the population library's spec (model, radius, interior, membrane,
+ * wall, nucleus, each varying parameter as { mean, cv, distribution }), so a saved population can be passed as-is.
+ */
+import { z } from "zod";
+import { describeValue, LIMITS, mediumConductivitySchema, quantity } from "@/lib/dielectric";
+
+const spread = (what: string, unit: string, min: number, max: number, range: string) =>
+  z.object(
+    {
+      mean: quantity({ what: `${what} mean (${unit})`, range, min, max }),
+      cv: quantity({ what: `${what} coefficient of variation`, range: "between 0 and 1 (0.1 = 10 %)", min: 0, max: 1 }),
+      distribution: z.enum(["normal", "lognormal"], { error: (iss) => `${what} distribution must be "normal" or "lognormal" (got ${describeValue(iss.input)})` }).optional(),
+    },
+    { error: (iss) => `${what} must be { mean, cv, distribution } (got ${describeValue(iss.input)})` },
+  );
+
+const thinLayer = (what: string) =>
+  z.object({
+    thickness: quantity({ what: `${what} thickness (m)`, range: "between 1 nm and 100 nm (1e-9 to 1e-7 m)", min: 1e-9, max: 1e-7 }),
+    capacitance: spread(`${what} capacitance`, "F/m²", 1e-4, 0.2, "between 1e-4 and 0.2 F/m² (0.01–20 µF/cm²)"),
+    conductance: spread(`${what} conductance`, "S/m²", 0, 1e7, "between 0 and 1e7 S/m²"),
+  });
+
+const body = (what: string) =>
+  z.object({
+    permittivity: spread(`${what} permittivity`, "relative", 1, 200, "between 1 and 200"),
+    conductivity: spread(`${what} conductivity`, "S/m", 1e-6, 20, "between 1e-6 and 20 S/m"),
+  });
+
+/** The shell models a population can use. */
+export const POPULATION_MODELS = ["homogeneous", "single-shell", "walled", "nucleated"] as const;
+
+/** A population's dielectric model with spreads. */
+export const populationSpecSchema = z
+  .object({
+    model: z.enum(POPULATION_MODELS, { error: (iss) => `model must be one of ${POPULATION_MODELS.join(", ")} (got ${describeValue(iss.input)})` }),
+    radius: spread("radius", "m", 0.1e-6, 100e-6, "between 0.1 µm and 100 µm (1e-7 to 1e-4 m)"),
+    interior: body("interior"),
+    surfaceConductance: quantity({ what: "surface conductance (S)", range: "between 0 and 1e-7 S", min: 0, max: 1e-7 }).optional(),
+    membrane: thinLayer("membrane").optional(),
+    wall: z
+      .object({
+        thickness: spread("wall thickness", "m", 5e-9, 2e-6, "between 5 nm and 2 µm"),
+        permittivity: spread("wall permittivity", "relative", 1, 200, "between 1 and 200"),
+        conductivity: spread("wall conductivity", "S/m", 1e-6, 20, "between 1e-6 and 20 S/m"),
+      })
+      .optional(),
+    nucleus: z
+      .object({
+        radiusFraction: spread("nucleus radius fraction", "of the cell radius", 0.1, 0.95, "between 0.1 and 0.95"),
+        envelope: thinLayer("nuclear envelope"),
+        nucleoplasm: body("nucleoplasm"),
+      })
+      .optional(),
+  })
+  .superRefine((p, ctx) => {
+    const need = (key: "membrane" | "wall" | "nucleus") => {
+      if (!p[key]) ctx.addIssue({ code: "custom", path: [key], message: `the ${p.model} model needs the ${key} parameters` });
+    };
+    if (p.model !== "homogeneous") need("membrane");
+    if (p.model === "walled") need("wall");
+    if (p.model === "nucleated") need("nucleus");
+    const shells = (p.membrane?.thickness ?? 0) + (p.wall ? p.wall.thickness.mean : 0);
+    if (shells >= 0.5 * p.radius.mean) {
+      ctx.addIssue({ code: "custom", path: ["radius", "mean"], message: `mean radius ${describeValue(p.radius.mean)} m leaves no room for shells ${describeValue(shells)} m thick; shells must be under half the radius` });
+    }
+  });
+
+const populationSchema = z.object({
+  id: z.string({ error: "population id must be text" }).min(1, { error: "population id must not be empty" }).max(200, { error: "population id must be at most 200 characters" }),
+  name: z.string().max(200, { error: "population name must be at most 200 characters" }).optional(),
+  spec: populationSpecSchema,
+});
+
+const gridOf = (what: string, value: ReturnType<typeof quantity>, maxPoints: number, unit: string) =>
+  z
+    .object(
+      {
+        start: value,
+        stop: value,
+        points: quantity({ what: `number of ${what} points`, range: `a whole number from 2 to ${maxPoints} (the planner's cap)`, min: 2, max: maxPoints, integer: true }),
+      },
+      { error: (iss) => `${what} range must be { start, stop, points } in ${unit} (got ${describeValue(iss.input)})` },
+    )
+    .superRefine((g, ctx) => {
+      if (!(g.stop > g.start)) ctx.addIssue({ code: "custom", path: ["stop"], message: `${what} stop (${describeValue(g.stop)} ${unit}) must be greater than start (${describeValue(g.start)} ${unit})` });
+    });
+
+/** Caps on the planner's grid and sample sizes. */
+export const PLANNER_LIMITS = {
+  maxFrequencies: 241,
+  maxConductivities: 121,
+  minSamples: 20,
+  maxSamples: 2000,
+  /** Cells × grid points over both populations. */
+  maxWork: 3e7,
+} as const;
+
+const frequency = quantity({ what: "frequency (Hz)", range: "from 1 Hz to 10 GHz", min: LIMITS.minFrequency, max: LIMITS.maxFrequency });
+
+const interdigitated = z.strictObject({
+  kind: z.literal("interdigitated"),
+  electrodeWidth: quantity({ what: "electrode width (m)", range: "between 1 µm and 1 mm", min: 1e-6, max: 1e-3 }),
+  electrodeGap: quantity({ what: "electrode gap (m)", range: "between 1 µm and 1 mm", min: 1e-6, max: 1e-3 }),
+  height: quantity({ what: "height above the electrodes (m)", range: "between 0 and 1 mm", min: 0, max: 1e-3 }).optional(),
+});
+const userGamma = z.strictObject({
+  kind: z.literal("user"),
+  gamma: quantity({ what: "field-gradient factor Γ (m⁻³)", range: "greater than zero and at most 1e20 m⁻³", min: 0, max: 1e20, exclusiveMin: true }),
+  electrodeGap: quantity({ what: "electrode gap (m)", range: "between 1 µm and 1 mm", min: 1e-6, max: 1e-3 }),
+});
+
+/** Request schema of `planWindows`. */
+export const windowsRequestSchema = z
+  .object({
+    populations: z
+      .array(populationSchema, { error: (iss) => `populations must be a list of two (got ${describeValue(iss.input)})` })
+      .length(2, { error: (iss) => `give exactly two populations, the one to collect and the other (got ${describeValue(iss.input)})` }),
+    /** Population to collect (default: the first). */
+    targetId: z.string().optional(),
+    medium: z
+      .object({
+        /** Fixed conductivity at the operating temperature, S/m … */
+        conductivity: mediumConductivitySchema.optional(),
+        /** … or a log-spaced range to sweep, S/m. */
+        conductivityRange: gridOf("conductivity", mediumConductivitySchema, PLANNER_LIMITS.maxConductivities, "S/m").optional(),
+        permittivity: quantity({ what: "medium relative permittivity", range: "between 1 and 200", min: 1, max: 200 }).optional(),
+        temperatureC: quantity({ what: "operating temperature (°C)", range: "between 0 and 60 °C", min: 0, max: 60 }).optional(),
+        relativeViscosity: quantity({ what: "medium viscosity relative to water", range: "between 1 and 10", min: 1, max: 10 }).optional(),
+        osmolality: quantity({ what: "medium osmolality (osmol/kg)", range: "between 0 and 2 osmol/kg", min: 0, max: 2 }).optional(),
+      })
+      .superRefine((m, ctx) => {
+        if ((m.conductivity === undefined) === (m.conductivityRange === undefined)) {
+          ctx.addIssue({ code: "custom", path: ["conductivity"], message: "give either a fixed medium conductivity (S/m) or a conductivityRange { start, stop, points }, not both or neither" });
+        }
+      }),
+    frequencies: gridOf("frequency", frequency, PLANNER_LIMITS.maxFrequencies, "Hz").optional(),
+    device: z.object({
+      geometry: z.discriminatedUnion("kind", [interdigitated, userGamma], { error: (iss) => `device geometry must be { kind: "interdigitated", electrodeWidth, electrodeGap, height? } or { kind: "user", gamma, electrodeGap } (got ${describeValue(iss.input)})` }),
+      /** Generator limit, volts peak-to-peak. */
+      maxVoltageVpp: quantity({ what: "generator limit (Vpp)", range: "greater than zero and at most 1000 Vpp", min: 0, max: 1000, exclusiveMin: true }),
+      channelHeight: quantity({ what: "channel height (m)", range: "between 1 µm and 5 mm", min: 1e-6, max: 5e-3 }),
+      flowSpeed: quantity({ what: "mean flow speed (m/s)", range: "between 0 and 1 m/s", min: 0, max: 1 }).optional(),
+      electrodeArrayLength: quantity({ what: "electrode array length along the flow (m)", range: "between 1 µm and 0.1 m", min: 1e-6, max: 0.1 }).optional(),
+      targetDepSpeed: quantity({ what: "target DEP speed (m/s)", range: "greater than zero and at most 0.01 m/s", min: 0, max: 0.01, exclusiveMin: true }).optional(),
+    }),
+    constraints: z
+      .object({
+        maxTemperatureRise: quantity({ what: "temperature-rise limit (K)", range: "greater than zero and at most 50 K", min: 0, max: 50, exclusiveMin: true }).optional(),
+        maxElectrothermalRatio: quantity({ what: "electrothermal/DEP speed limit", range: "greater than zero and at most 1000", min: 0, max: 1000, exclusiveMin: true }).optional(),
+        maxTransmembranePotential: quantity({ what: "transmembrane potential limit (V)", range: "greater than zero and at most 10 V", min: 0, max: 10, exclusiveMin: true }).optional(),
+        maxAcElectroosmosis: z.enum(["unlikely", "possible", "likely"]).optional(),
+        osmolalityMin: quantity({ what: "lowest osmolality (osmol/kg)", range: "between 0 and 2", min: 0, max: 2 }).optional(),
+        osmolalityMax: quantity({ what: "highest osmolality (osmol/kg)", range: "between 0 and 2", min: 0, max: 2 }).optional(),
+        minRecovery: quantity({ what: "minimum recovery", range: "between 0 and 1", min: 0, max: 1 }).optional(),
+        minPurity: quantity({ what: "minimum purity", range: "between 0 and 1", min: 0, max: 1 }).optional(),
+      })
+      .optional(),
+    separation: z
+      .object({
+        margin: quantity({ what: "Re[K] margin", range: "between 0 and 0.5", min: 0, max: 0.5 }).optional(),
+        slowCellQuantile: quantity({ what: "slow-cell share", range: "between 0 and 0.5", min: 0, max: 0.5 }).optional(),
+      })
+      .optional(),
+    sortDesign: z
+      .discriminatedUnion("kind", [
+        z.object({ kind: z.literal("capture"), captured: z.enum(["target", "other"]).optional() }),
+        z.object({ kind: z.literal("opposite-deflection") }),
+        z.object({ kind: z.literal("magnitude-deflection") }),
+      ], { error: (iss) => `sortDesign must be { kind: "capture", captured?: "target" | "other" }, { kind: "opposite-deflection" } or { kind: "magnitude-deflection" } (got ${describeValue(iss.input)})` })
+      .optional(),
+    inputMix: z.object({ targetFraction: quantity({ what: "target share of the input", range: "greater than 0 and less than 1", min: 0, max: 1, exclusiveMin: true }) }).optional(),
+    seed: quantity({ what: "seed", range: "a whole number from 0 to 4294967295", min: 0, max: 4294967295, integer: true }).optional(),
+    samplesPerPopulation: quantity({ what: "samples per population", range: `a whole number from ${PLANNER_LIMITS.minSamples} to ${PLANNER_LIMITS.maxSamples}`, min: PLANNER_LIMITS.minSamples, max: PLANNER_LIMITS.maxSamples, integer: true }).optional(),
+    topN: quantity({ what: "number of windows to return", range: "a whole number from 1 to 100", min: 1, max: 100, integer: true }).optional(),
+  })
+  .superRefine((r, ctx) => {
+    const [a, b] = r.populations;
+    if (a && b && a.id === b.id) ctx.addIssue({ code: "custom", path: ["populations", 1, "id"], message: `the two populations need different ids (both are ${JSON.stringify(a.id)})` });
+    if (r.targetId !== undefined && !r.populations.some((p) => p.id === r.targetId)) {
+      ctx.addIssue({ code: "custom", path: ["targetId"], message: `targetId ${JSON.stringify(r.targetId)} is not one of the population ids` });
+    }
+    const c = r.constraints;
+    if (c?.osmolalityMin !== undefined && c?.osmolalityMax !== undefined && !(c.osmolalityMax > c.osmolalityMin)) {
+      ctx.addIssue({ code: "custom", path: ["constraints", "osmolalityMax"], message: "highest osmolality must be above the lowest" });
+    }
+    const nf = r.frequencies?.points ?? 121;
+    const nc = r.medium.conductivityRange?.points ?? 1;
+    const work = 2 * (r.samplesPerPopulation ?? 500) * nf * nc;
+    if (work > PLANNER_LIMITS.maxWork) {
+      ctx.addIssue({ code: "custom", path: ["samplesPerPopulation"], message: `2 populations × ${r.samplesPerPopulation ?? 500} cells × ${nf} frequencies × ${nc} conductivities = ${work} cell-points; the cap is ${PLANNER_LIMITS.maxWork}` });
+    }
+  });
+
+/** A `planWindows` request (see `windowsRequestSchema`). */
+export type WindowsRequest = z.input<typeof windowsRequestSchema>;
+/** A population's spec with spreads. */
+export type PopulationSpec = z.infer<typeof populationSpecSchema>;
+/** A population in a request. */
+export type PopulationEntry = z.infer<typeof populationSchema>;
+/** One varying parameter: mean, coefficient of variation, distribution. */
+export type SpreadParameter = PopulationSpec["radius"];
