@@ -4,7 +4,9 @@
  */
 import type { z } from "zod";
 import { LIMITS, spectraRequestSchema, sweepRequestSchema } from "@/lib/dielectric";
-import { SPECTRA_EXAMPLE, SWEEP_EXAMPLE, type ApiExample } from "./examples";
+import { PLANNER_LIMITS, windowsRequestSchema } from "@/lib/planner";
+import { SENSITIVITY_EXAMPLE, SPECTRA_EXAMPLE, SWEEP_EXAMPLE, WINDOWS_EXAMPLE, type ApiExample } from "./examples";
+import { sensitivityRequestSchema } from "./windows";
 
 /** A JSON Schema object (draft 2020-12, as OpenAPI 3.1 uses). */
 export type JsonSchema = Record<string, unknown>;
@@ -73,6 +75,61 @@ export const SWEEP_RESPONSE_SCHEMA: JsonSchema = {
   },
 };
 
+const described = (type: string | string[], description: string): JsonSchema => ({ type, description });
+
+/** Response of POST /api/v1/windows (main parts; every number SI). */
+export const WINDOWS_RESPONSE_SCHEMA: JsonSchema = {
+  type: "object",
+  required: ["engineVersion", "plannerVersion", "model", "grid", "map", "crossovers", "windows", "windowCount", "warnings"],
+  properties: {
+    engineVersion: { type: "string" },
+    plannerVersion: { type: "string" },
+    model: described("object", "Which sort design, seed, sample size, constraints, medium, device field approximation and assumptions produced every number."),
+    grid: described("object", "frequencies (Hz) and conductivities (S/m) of the map, and its layout."),
+    map: described("object", "Per grid point, row-major by conductivity: separation score, feasible (1/0), recovery, purity, voltage (Vrms) and each population's fractions moving by positive and negative DEP."),
+    crossovers: described("array", "Crossover frequencies (Hz) of each population's mean cell at each conductivity."),
+    windows: {
+      type: "array",
+      description: "Ranked windows, best first (at most topN).",
+      items: {
+        type: "object",
+        required: ["rank", "conductivity", "bandStart", "bandStop", "operatingPoint", "voltage", "recovery", "purity", "score", "scoreParts"],
+        properties: {
+          rank: { type: "integer" },
+          conductivity: described("number", "Medium conductivity of the band, S/m."),
+          bandStart: described("number", "Lower band edge, Hz."),
+          bandStop: described("number", "Upper band edge, Hz."),
+          operatingPoint: described("object", "Representative point: log-centre frequency (Hz) and conductivity (S/m)."),
+          voltage: described("object", "Drive voltage (rms and Vpp), what limited it, and why."),
+          recovery: described("number", "Predicted share of the target population recovered (0–1)."),
+          purity: described("number", "Predicted share of target cells in the collected fraction (0–1)."),
+          crossoverMargins: described("array", "Distance in decades from the operating point to each population's nearest crossover."),
+          score: described("number", "Sum of the score parts' contributions."),
+          scoreParts: described("array", "Each part's value, weight, contribution and explanation."),
+          warnings: described("array", "Side-effect warnings at this window (heating, electrothermal flow, transmembrane potential, electro-osmosis)."),
+        },
+      },
+    },
+    windowCount: described("integer", "How many windows were found before keeping the top N."),
+    warnings: described("array", "Warnings about the whole plan (always including that these are model predictions)."),
+  },
+};
+
+/** Response of POST /api/v1/windows/sensitivity. */
+export const SENSITIVITY_RESPONSE_SCHEMA: JsonSchema = {
+  type: "object",
+  required: ["window", "baseline", "items", "dominant"],
+  properties: {
+    window: described("object", "The window analysed, as sent."),
+    baseline: described(["object", "null"], "The band re-found on the finer grid used here (Hz), or null if it is not feasible there."),
+    resolutionDecades: described("number", "Grid step of the band search, decades."),
+    items: described("array", "One entry per population parameter: the band at −1 SD (low) and +1 SD (high), the edge shifts in decades and the largest swing (data for a tornado chart)."),
+    dominant: described(["object", "null"], "The parameter the window depends on most."),
+    skipped: described("array", "Parameters without spread, which were not shifted."),
+    note: { type: "string" },
+  },
+};
+
 const UNITS =
   "SI units: radius and thickness in m, conductivity in S/m, relative permittivity (dimensionless), membrane capacitance in F/m² (1 µF/cm² = 0.01 F/m²), membrane conductance in S/m², frequency in Hz.";
 
@@ -116,5 +173,37 @@ export const ROUTE_DOCS: RouteDoc[] = [
     responseName: "SweepResponse",
     responseSchema: SWEEP_RESPONSE_SCHEMA,
     example: SWEEP_EXAMPLE,
+  },
+  {
+    path: "/api/v1/windows",
+    method: "post",
+    operationId: "planWindows",
+    summary: "Ranked operating windows for two populations",
+    description: [
+      "From two populations with natural spreads (each parameter as { mean, cv, distribution }), a medium (fixed conductivity or a range to sweep), a device and constraints, finds contiguous frequency bands at each conductivity where the populations separate and every constraint holds: Joule temperature rise, electrothermal/DEP speed ratio, transmembrane potential, AC electro-osmosis, osmolality, minimum recovery and purity.",
+      "Each window gives its band edges, a representative operating point, the voltage, predicted recovery and purity for the chosen sort design (capture, opposite-direction or same-direction deflection), the margin to each population's nearest crossover and a score whose parts are listed. The same body and seed always give the same answer.",
+      "SI units; the generator limit maxVoltageVpp is in volts peak-to-peak, results give both Vrms and Vpp. Populations use the same spec as the population library (single-shell, walled, nucleated or homogeneous).",
+      `Limits: at most ${PLANNER_LIMITS.maxFrequencies} frequencies × ${PLANNER_LIMITS.maxConductivities} conductivities, ${PLANNER_LIMITS.minSamples}–${PLANNER_LIMITS.maxSamples} sampled cells per population, and ${PLANNER_LIMITS.maxWork.toExponential(0)} cell-points in all; over a cap the answer is 400 naming it.`,
+    ],
+    requestName: "WindowsRequest",
+    requestSchema: windowsRequestSchema,
+    responseName: "WindowsResponse",
+    responseSchema: WINDOWS_RESPONSE_SCHEMA,
+    example: WINDOWS_EXAMPLE,
+  },
+  {
+    path: "/api/v1/windows/sensitivity",
+    method: "post",
+    operationId: "windowSensitivity",
+    summary: "Sensitivity of one window to each cell parameter",
+    description: [
+      "Takes a windows request and one of its windows ({ conductivity, bandStart, bandStop }, e.g. copied from the windows answer), shifts each varying parameter's mean by −1 and +1 standard deviation one at a time with the same seed, and reports how far each band edge moves (in decades) and which parameter the window depends on most.",
+      "SI units, as for /api/v1/windows.",
+    ],
+    requestName: "SensitivityRequest",
+    requestSchema: sensitivityRequestSchema,
+    responseName: "SensitivityResponse",
+    responseSchema: SENSITIVITY_RESPONSE_SCHEMA,
+    example: SENSITIVITY_EXAMPLE,
   },
 ];

@@ -1,6 +1,6 @@
 import { expect, test, type APIResponse, type Page } from "@playwright/test";
 import { db } from "@/db/knex";
-import { API_EXAMPLES, SPECTRA_EXAMPLE, SWEEP_EXAMPLE, VIABLE_CELL } from "@/lib/api/examples";
+import { API_EXAMPLES, SENSITIVITY_EXAMPLE, SPECTRA_EXAMPLE, SWEEP_EXAMPLE, VIABLE_CELL, WINDOWS_EXAMPLE } from "@/lib/api/examples";
 import { LIMITS } from "@/lib/dielectric/limits";
 import { createToken } from "@/lib/tokens/service";
 import { findUserById } from "@/lib/users/repo";
@@ -184,6 +184,33 @@ test.describe("public JSON API", () => {
       data: { ...SPECTRA_EXAMPLE.body, frequencies: Array.from({ length: LIMITS.maxSpectraFrequencies + 1 }, (_, i) => 1e3 + i) },
     });
     expect(await expectIssues(list, "frequencies")).toContain(String(LIMITS.maxSpectraFrequencies));
+  });
+
+  test("windows: a plan comes back ranked and reproducible, its first window's sensitivity runs, bad bodies get 400", async ({ request }) => {
+    const plan = await request.post("/api/v1/windows", { headers: bearer(devToken), data: WINDOWS_EXAMPLE.body });
+    expect(plan.status()).toBe(200);
+    const text = await plan.text();
+    const again = await request.post("/api/v1/windows", { headers: bearer(devToken), data: WINDOWS_EXAMPLE.body });
+    expect(await again.text()).toBe(text);
+    const json = JSON.parse(text);
+    expect(json.windows.length).toBeGreaterThan(0);
+    expect(json.windows.map((w: { rank: number }) => w.rank)).toEqual(json.windows.map((_: unknown, i: number) => i + 1));
+    const first = json.windows[0];
+    const sens = await request.post("/api/v1/windows/sensitivity", {
+      headers: bearer(devToken),
+      data: { request: WINDOWS_EXAMPLE.body, window: { conductivity: first.conductivity, bandStart: first.bandStart, bandStop: Math.max(first.bandStop, first.bandStart * 1.01) } },
+    });
+    expect(sens.status()).toBe(200);
+    expect((await sens.json()).items.length).toBeGreaterThan(0);
+    const body = WINDOWS_EXAMPLE.body as { populations: unknown[]; medium: Record<string, unknown> };
+    await expectIssues(await request.post("/api/v1/windows", { headers: bearer(devToken), data: { ...body, populations: body.populations.slice(0, 1) } }), "populations");
+    await expectIssues(await request.post("/api/v1/windows", { headers: bearer(devToken), data: { ...body, medium: { permittivity: 78 } } }), "medium.conductivity");
+    await expectIssues(await request.post("/api/v1/windows", { headers: bearer(devToken), data: { ...body, seed: -1 } }), "seed");
+    const sensBody = SENSITIVITY_EXAMPLE.body as { request: unknown };
+    await expectIssues(
+      await request.post("/api/v1/windows/sensitivity", { headers: bearer(devToken), data: { ...sensBody, window: { conductivity: 0.1, bandStart: 1e6, bandStop: null } } }),
+      "window.bandStop",
+    );
   });
 
   test("the API page explains the routes and runs an example with the session", async ({ page }) => {

@@ -1,6 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as spectra } from "@/app/api/v1/spectra/route";
 import { POST as sweeps } from "@/app/api/v1/sweeps/route";
+import { POST as windows } from "@/app/api/v1/windows/route";
+import { POST as windowSensitivity } from "@/app/api/v1/windows/sensitivity/route";
+import { SENSITIVITY_EXAMPLE, WINDOWS_EXAMPLE } from "@/lib/api/examples";
 import { LIMITS } from "@/lib/dielectric";
 import { MAX_JSON_BYTES } from "@/lib/http/api";
 import { createToken, revokeToken } from "@/lib/tokens/service";
@@ -140,5 +143,37 @@ describe("compute routes in process", () => {
     expect(JSON.stringify({ frequencies: Array.from({ length: 200_000 }, (_, i) => 1e3 + i * 0.123456789) }).length).toBeGreaterThan(MAX_JSON_BYTES);
     expect(huge.status).toBe(413);
     expect((await huge.json()).error).toBe("too_large");
+  });
+
+  it("plans windows reproducibly: the same body and seed give byte-identical answers", async () => {
+    const a = await call(windows, WINDOWS_EXAMPLE.body);
+    expect(a.status).toBe(200);
+    const textA = await a.text();
+    const textB = await (await call(windows, WINDOWS_EXAMPLE.body)).text();
+    expect(textB).toBe(textA);
+    const json = JSON.parse(textA);
+    expect(json.model.seed).toBe(42);
+    expect(json.windows.length).toBeGreaterThan(0);
+    for (const w of json.windows) expect(w.bandStop).toBeGreaterThanOrEqual(w.bandStart); // a one-point band has equal edges
+  });
+
+  it("refuses bad windows and sensitivity bodies with field errors", async () => {
+    const body = WINDOWS_EXAMPLE.body as Record<string, unknown> & { populations: unknown[]; medium: Record<string, unknown> };
+    const one = await call(windows, { ...body, populations: body.populations.slice(0, 1) });
+    expect(one.status).toBe(400);
+    expect((await issues(one)).map((i) => i.path)).toContain("populations");
+    const both = await call(windows, { ...body, medium: { ...body.medium, conductivity: 0.01 } });
+    expect(both.status).toBe(400);
+    expect((await issues(both)).map((i) => i.path)).toContain("medium.conductivity");
+    const work = await call(windows, { ...body, frequencies: { start: 1e3, stop: 1e9, points: 241 }, medium: { ...body.medium, conductivityRange: { start: 1e-3, stop: 1, points: 121 } }, samplesPerPopulation: 2000 });
+    expect(work.status).toBe(400);
+    expect((await issues(work)).find((i) => i.path === "samplesPerPopulation")?.message).toMatch(/cap/);
+    const sens = SENSITIVITY_EXAMPLE.body as { request: unknown };
+    const backwards = await call(windowSensitivity, { ...sens, window: { conductivity: 0.1, bandStart: 6e7, bandStop: 1e6 } });
+    expect(backwards.status).toBe(400);
+    expect((await issues(backwards)).map((i) => i.path)).toContain("window.bandStop");
+    const noWindow = await call(windowSensitivity, { request: sens.request });
+    expect(noWindow.status).toBe(400);
+    expect((await issues(noWindow)).map((i) => i.path)).toContain("window");
   });
 });
