@@ -1,0 +1,67 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { PrintForm } from "@/components/bench/print-form";
+import { RunForm } from "@/components/bench/run-form";
+import { VersionRuns } from "@/components/runs/version-runs";
+import { requirePageUser } from "@/lib/auth/session";
+import { can } from "@/lib/auth/roles";
+import { conductivityText, frequencyText, utcText, voltsText } from "@/lib/bench-sheet/format";
+import { isBenchReady } from "@/lib/bench-sheet/layout";
+import { loadSheetSourceById } from "@/lib/bench-sheet/source";
+import { STATE_WORDS } from "@/lib/bench-sheet/types";
+import { NotFoundError } from "@/lib/errors";
+import { maxUploadBytes } from "@/lib/runs/attachments";
+
+export const metadata: Metadata = { title: "Bench view" };
+
+async function load(user: Parameters<typeof loadSheetSourceById>[0], id: number) {
+  try {
+    return await loadSheetSourceById(user, id);
+  } catch (err) {
+    if (err instanceof NotFoundError) notFound();
+    throw err;
+  }
+}
+
+export default async function BenchVersionPage({ params }: { params: Promise<{ versionId: string }> }) {
+  const user = await requirePageUser("run.read");
+  const id = Number((await params).versionId);
+  if (!Number.isInteger(id) || id <= 0) notFound();
+  const source = await load(user, id);
+  const { protocol, version, signatures, content } = source;
+  const ready = isBenchReady(source);
+  const s = content.selection;
+  return (
+    <div className="max-w-6xl space-y-6">
+      <header>
+        <p className="text-sm"><Link href="/bench">Current protocols</Link></p>
+        <h1 data-testid="bench-title">{protocol.code} · {protocol.title}</h1>
+        <p className="mt-1 text-ink-soft">
+          Version {version.number} · <span className="font-medium" data-testid="bench-state">{STATE_WORDS[version.state]}</span>
+          {signatures.map((sig) => <span key={sig.signedAt.toISOString()}> · signed by {sig.signerName} ({sig.meaning}), {utcText(sig.signedAt)}</span>)}
+        </p>
+        <p className="mt-1 break-all font-mono text-xs text-ink-muted">Content SHA-256 {version.contentHash}</p>
+      </header>
+      {(source.integrityProblems ?? []).map((p) => <p key={p} className="notice border-danger/40 bg-danger-light">{p}</p>)}
+      <section className="card space-y-3">
+        <h2>Bench sheet</h2>
+        <p className="text-sm text-ink-soft">
+          {frequencyText(s.frequency)}, {voltsText(s.voltageVpp, "Vpp")} ({voltsText(s.voltageVrms, "Vrms")}) sine, buffer {conductivityText(content.buffer.targetConductivity25)} ± {Math.round(content.buffer.tolerance * 100)} % at 25 °C.
+        </p>
+        <PrintForm protocolId={protocol.id} number={version.number} benchReady={ready} />
+      </section>
+      {can(user.role, "run.record") && ready && (
+        <section className="card">
+          <h2 className="mb-3">Record a run</h2>
+          <RunForm
+            versionId={version.id}
+            maxUploadMb={Math.round(maxUploadBytes() / 1024 / 1024)}
+            defaults={{ operatingTemperatureC: s.temperatureC, frequencyKHz: Number((s.frequency / 1e3).toPrecision(6)), voltageVpp: Number(s.voltageVpp.toPrecision(4)), flowRateUlPerMin: s.flowRateUlPerMin }}
+          />
+        </section>
+      )}
+      <VersionRuns versionId={version.id} />
+    </div>
+  );
+}

@@ -1,0 +1,141 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useRef, useState } from "react";
+import { useForm, type FieldPath } from "react-hook-form";
+import type { z } from "zod";
+import { RUN_LIMITS, recordRunSchema } from "@/lib/runs/schemas";
+
+type In = z.input<typeof recordRunSchema>;
+type Out = z.output<typeof recordRunSchema>;
+type NumberField = keyof typeof RUN_LIMITS;
+
+/** Planned settings used to prefill the form (lab units); the technician changes what differed. */
+export interface RunDefaults {
+  operatingTemperatureC: number;
+  frequencyKHz: number;
+  voltageVpp: number;
+  flowRateUlPerMin: number | null;
+}
+
+function NumberInput({ name, register, error, optional }: { name: NumberField; register: ReturnType<typeof useForm<In, unknown, Out>>["register"]; error?: string; optional?: boolean }) {
+  const l = RUN_LIMITS[name];
+  return (
+    <label className="field">
+      <span>{l.label} ({l.unit}){optional ? ", optional" : ""}</span>
+      <input className="input" inputMode="decimal" aria-invalid={Boolean(error)} {...register(name)} />
+      <p className="hint">{l.min} to {l.max} {l.unit}</p>
+      {error && <p className="field-error">{error}</p>}
+    </label>
+  );
+}
+
+/** The record-a-run form: measured values, observations and attachments, checked in the browser and again on the server. */
+export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: number; defaults: RunDefaults; maxUploadMb: number }) {
+  const router = useRouter();
+  const files = useRef<HTMLInputElement>(null);
+  const [status, setStatus] = useState<{ ok: boolean; text: string } | null>(null);
+  const [fileError, setFileError] = useState<string | null>(null);
+  const initial: In = {
+    versionId,
+    bufferLot: "",
+    conductivityUsPerCm: "",
+    measuredAtC: "",
+    operatingTemperatureC: String(defaults.operatingTemperatureC),
+    frequencyKHz: String(defaults.frequencyKHz),
+    voltageVpp: String(defaults.voltageVpp),
+    flowRateUlPerMin: defaults.flowRateUlPerMin === null ? "" : String(defaults.flowRateUlPerMin),
+    recoveryPercent: "",
+    purityPercent: "",
+    countingMethod: "",
+    deviations: "",
+    notes: "",
+  };
+  const { register, handleSubmit, setError, reset, formState: { errors, isSubmitting } } = useForm<In, unknown, Out>({
+    resolver: zodResolver(recordRunSchema),
+    defaultValues: initial,
+  });
+  const msg = (k: keyof In) => errors[k]?.message as string | undefined;
+
+  async function onSubmit(values: Out) {
+    setStatus(null);
+    setFileError(null);
+    const body = new FormData();
+    body.set("run", JSON.stringify(values));
+    for (const f of Array.from(files.current?.files ?? [])) body.append("attachments", f);
+    const res = await fetch("/api/v1/runs", { method: "POST", body });
+    const json = await res.json().catch(() => ({}));
+    if (!res.ok) {
+      const issues: { path: string; message: string }[] = json.issues ?? [];
+      const fileIssues = issues.filter((i) => i.path === "attachments").map((i) => i.message);
+      if (fileIssues.length) setFileError(fileIssues.join(" "));
+      for (const i of issues) if (i.path in initial) setError(i.path as FieldPath<In>, { message: i.message });
+      setStatus({ ok: false, text: `${json.message ?? `The server refused the run (${res.status}).`} Nothing was saved.` });
+      return;
+    }
+    const run = json.run;
+    reset(initial);
+    if (files.current) files.current.value = "";
+    setStatus({
+      ok: true,
+      text: `Run recorded. Conductivity ${run.conductivityAccepted ? "within" : "OUTSIDE"} the acceptance range (${(run.conductivity25 * 1e4).toPrecision(3)} µS/cm at 25 °C).`,
+    });
+    router.refresh();
+  }
+
+  return (
+    <form onSubmit={handleSubmit(onSubmit)} className="space-y-5" noValidate data-testid="run-form">
+      <input type="hidden" {...register("versionId")} />
+      <fieldset className="grid gap-4 sm:grid-cols-3">
+        <legend className="mb-2 font-medium">Buffer</legend>
+        <label className="field">
+          <span>Buffer lot</span>
+          <input className="input" aria-invalid={Boolean(errors.bufferLot)} {...register("bufferLot")} />
+          {errors.bufferLot && <p className="field-error">{errors.bufferLot.message}</p>}
+        </label>
+        <NumberInput name="conductivityUsPerCm" register={register} error={msg("conductivityUsPerCm")} />
+        <NumberInput name="measuredAtC" register={register} error={msg("measuredAtC")} />
+      </fieldset>
+      <fieldset className="grid gap-4 sm:grid-cols-4">
+        <legend className="mb-2 font-medium">Settings used</legend>
+        <NumberInput name="operatingTemperatureC" register={register} error={msg("operatingTemperatureC")} />
+        <NumberInput name="frequencyKHz" register={register} error={msg("frequencyKHz")} />
+        <NumberInput name="voltageVpp" register={register} error={msg("voltageVpp")} />
+        <NumberInput name="flowRateUlPerMin" register={register} error={msg("flowRateUlPerMin")} optional />
+      </fieldset>
+      <fieldset className="grid gap-4 sm:grid-cols-3">
+        <legend className="mb-2 font-medium">Observed</legend>
+        <NumberInput name="recoveryPercent" register={register} error={msg("recoveryPercent")} optional />
+        <NumberInput name="purityPercent" register={register} error={msg("purityPercent")} optional />
+        <label className="field">
+          <span>Counting method</span>
+          <input className="input" placeholder="e.g. flow cytometry, PI stain" aria-invalid={Boolean(errors.countingMethod)} {...register("countingMethod")} />
+          {errors.countingMethod && <p className="field-error">{errors.countingMethod.message}</p>}
+        </label>
+      </fieldset>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <label className="field">
+          <span>Deviations from the bench sheet</span>
+          <textarea className="input" rows={3} {...register("deviations")} />
+          {errors.deviations && <p className="field-error">{errors.deviations.message}</p>}
+        </label>
+        <label className="field">
+          <span>Notes</span>
+          <textarea className="input" rows={3} {...register("notes")} />
+          {errors.notes && <p className="field-error">{errors.notes.message}</p>}
+        </label>
+      </div>
+      <label className="field">
+        <span>Attachments (optional)</span>
+        <input ref={files} className="input" type="file" name="attachments" multiple accept=".png,.jpg,.jpeg,.csv,.pdf,image/png,image/jpeg,text/csv,application/pdf" data-testid="run-attachments" />
+        <p className="hint">PNG or JPEG images, CSV tables, PDF; up to 5 files of {maxUploadMb} MB each. Files are checked by their content.</p>
+        {fileError && <p className="field-error" data-testid="attachments-error">{fileError}</p>}
+      </label>
+      <div className="flex items-center gap-3">
+        <button className="btn" type="submit" disabled={isSubmitting}>{isSubmitting ? "Saving…" : "Record run"}</button>
+        {status && <p className={`text-sm ${status.ok ? "text-moss-dark" : "text-danger"}`} role="status" data-testid="run-status">{status.text}</p>}
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,47 @@
+import { frequencyText, microSiemensPerCm, percentText, utcText } from "@/lib/bench-sheet/format";
+import { sizeText } from "@/lib/runs/attachments";
+import type { BenchRun } from "@/lib/runs/repo";
+
+/** The runs of one version, newest first, with the conductivity flag in words (not colour alone) and attachments. */
+export function RunsTable({ runs }: { runs: BenchRun[] }) {
+  if (runs.length === 0) return <p className="text-sm text-ink-muted">No runs recorded against this version yet.</p>;
+  return (
+    <table data-testid="runs-table">
+      <thead>
+        <tr><th>When / who</th><th>Buffer</th><th>Conductivity</th><th>Settings</th><th>Observed</th><th>Notes and files</th></tr>
+      </thead>
+      <tbody>
+        {runs.map((r) => (
+          <tr key={r.id} data-testid={`run-${r.id}`}>
+            <td>{utcText(r.createdAt)}<span className="block text-xs text-ink-muted">{r.technicianName}</span></td>
+            <td>{r.bufferLot}</td>
+            <td>
+              {microSiemensPerCm(r.measuredConductivity)} at {r.measuredAtC} °C
+              <span className="block text-xs text-ink-muted">= {microSiemensPerCm(r.conductivity25)} at 25 °C</span>
+              {r.conductivityAccepted ? (
+                <span className="pill border-moss/40 bg-moss-light text-moss-dark">within range</span>
+              ) : (
+                <span className="pill border-danger/40 bg-danger-light text-danger" data-testid="out-of-range">
+                  OUT OF RANGE: accepted {microSiemensPerCm(r.targetConductivity25 * (1 - r.tolerance))} to {microSiemensPerCm(r.targetConductivity25 * (1 + r.tolerance))}
+                </span>
+              )}
+            </td>
+            <td>{frequencyText(r.frequencyHz)}, {r.voltageVpp} Vpp<span className="block text-xs text-ink-muted">{r.operatingTemperatureC} °C{r.flowRateUlPerMin === null ? "" : `, ${r.flowRateUlPerMin} µL/min`}</span></td>
+            <td>
+              {r.observedRecovery === null ? "—" : `recovery ${percentText(r.observedRecovery)}`}
+              <span className="block">{r.observedPurity === null ? "" : `purity ${percentText(r.observedPurity)}`}</span>
+              {r.countingMethod && <span className="block text-xs text-ink-muted">{r.countingMethod}</span>}
+            </td>
+            <td className="max-w-xs">
+              {r.deviations && <p><span className="font-medium">Deviations:</span> {r.deviations}</p>}
+              {r.notes && <p>{r.notes}</p>}
+              {r.attachments.map((a) => (
+                <a key={a.id} className="block text-sm" href={`/api/v1/runs/attachments/${a.id}`}>{a.fileName} ({a.mimeType}, {sizeText(a.sizeBytes)})</a>
+              ))}
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
