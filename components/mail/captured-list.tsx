@@ -1,4 +1,4 @@
-import { plainTextOf } from "@/lib/format/mime";
+import { plainTextOf, subjectOf } from "@/lib/format/mime";
 import { formatDateTime } from "@/lib/format/time";
 import type { CapturedMail } from "@/lib/mail/sink";
 
@@ -11,7 +11,7 @@ export function CapturedList({ messages }: { messages: CapturedMail[] }) {
         <li key={m.id} className="rounded-md border border-paper-line">
           <details>
             <summary className="flex cursor-pointer flex-wrap gap-x-4 px-3 py-2 text-sm">
-              <span className="font-medium">{m.subject.replace(/\s+/g, " ")}</span>
+              <span className="font-medium">{subjectOf(m.raw) || m.subject}</span>
               <span className="text-ink-muted">to {m.to.join(", ")}</span>
               <span className="text-ink-muted">{formatDateTime(new Date(m.receivedAt))}</span>
             </summary>

@@ -27,7 +27,8 @@ function ChangeTable({ rows, beforeLabel, afterLabel, empty }: { rows: FieldChan
 
 function windowText(w: RankedWindow | null): string {
   if (!w) return "—";
-  const band = w.band ? `${formatFrequency(w.band.low)} – ${formatFrequency(w.band.high)}` : w.frequency !== null ? formatFrequency(w.frequency) : "";
+  const centre = w.frequency !== null ? `centre ${formatFrequency(w.frequency)}` : "";
+  const band = w.band ? `${formatFrequency(w.band.low)} – ${formatFrequency(w.band.high)}${centre ? ` (${centre})` : ""}` : centre;
   const pred = w.recovery !== null && w.purity !== null ? `, recovery ${formatPercent(w.recovery)}, purity ${formatPercent(w.purity)}` : "";
   return `${formatConductivity(w.conductivity)}, ${band}${pred}${w.score !== null ? `, score ${sig(w.score)}` : ""}`;
 }

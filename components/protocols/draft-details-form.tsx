@@ -40,7 +40,7 @@ export function DraftDetailsForm({ defaults, returned }: { defaults: DraftDetail
       {returned && <p className="notice">Saving reopens this returned version as a draft; submit it again when it is ready.</p>}
       <input type="hidden" {...register("versionId")} />
       <input type="hidden" {...register("lockVersion")} />
-      <div className="grid gap-4 sm:grid-cols-2">
+      <div className="grid gap-4">
         {field("washes", "Washes", "Whole number, 0 to 10.")}
         {field("resuspensionMillionsPerMl", "Resuspension density (million cells/mL)")}
         {field("tolerancePercent", "Conductivity tolerance (%)", "Accepted deviation of the measured buffer conductivity, 1 to 50 %.")}

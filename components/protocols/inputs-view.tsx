@@ -18,6 +18,8 @@ function Rows({ rows }: { rows: [string, React.ReactNode][] }) {
   );
 }
 
+const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
 /** Every input of a version, read-only, in lab units. */
 export function InputsView({ content }: { content: ProtocolContent }) {
   const { buffer, device, cellPrep } = content;
@@ -28,8 +30,7 @@ export function InputsView({ content }: { content: ProtocolContent }) {
         <h2 className="mb-3">Populations</h2>
         <PopulationTable populations={content.populations} />
       </section>
-      <div className="grid gap-5 lg:grid-cols-2">
-        <section className="card">
+      <section className="card">
           <h2 className="mb-3">Buffer{buffer.name ? ` — ${buffer.name}` : ""}</h2>
           <Rows
             rows={[
@@ -53,13 +54,14 @@ export function InputsView({ content }: { content: ProtocolContent }) {
             rows={[
               ["Geometry", device.geometry],
               ...Object.entries(device.dimensions).map(([k, v]): [string, string] => [k[0].toUpperCase() + k.slice(1), formatQuantity(v, describePath(k).kind)]),
-              ["Gradient factor Γ", `${sig(device.gradientFactor)} m⁻³ (${device.gradientSource})`],
+              ["Gradient factor Γ", `${formatQuantity(device.gradientFactor, "gradient")} (${device.gradientSource})`],
               ["Generator limit", formatVpp(device.maxVoltageVpp)],
               ["Sort design", content.sortDesign],
               ["Target fraction in the input", formatPercent(content.inputMix.targetFraction)],
             ]}
           />
         </section>
+      <div className="grid gap-5 lg:grid-cols-2">
         <section className="card">
           <h2 className="mb-3">Cell preparation</h2>
           <Rows
@@ -72,7 +74,7 @@ export function InputsView({ content }: { content: ProtocolContent }) {
         </section>
         <section className="card">
           <h2 className="mb-3">Limits</h2>
-          <Rows rows={Object.entries(content.limits).map(([k, v]): [string, string] => [k, formatQuantity(v, describePath(k).kind)])} />
+          <Rows rows={Object.entries(content.limits).map(([k, v]): [string, string] => [capital(describePath(k).label), formatQuantity(v, describePath(k).kind)])} />
           <p className="hint mt-3">Engine {content.plan.engineVersion}, sampling seed {content.plan.seed}.</p>
         </section>
       </div>

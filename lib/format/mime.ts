@@ -15,3 +15,23 @@ export function plainTextOf(raw: string): string {
   }
   return body;
 }
+
+/**
+ * The Subject header of a raw message, unfolded and decoded (RFC 2047: whitespace between two adjacent encoded
+ * words is dropped, so a long subject split across words reads as it was written).
+ * @example subjectOf("Subject: =?UTF-8?Q?Signed_off:_A?=\r\n =?UTF-8?Q?BC_=E2=80=94_x?=\r\n\r\nbody") // "Signed off: ABC — x"
+ */
+export function subjectOf(raw: string): string {
+  const head = raw.split(/\r?\n\r?\n/)[0] ?? "";
+  const unfolded = head.replace(/\r?\n[ \t]+/g, " ");
+  const value = /^Subject:[ \t]*(.*)$/im.exec(unfolded)?.[1] ?? "";
+  const word = /=\?([^?]+)\?([bqBQ])\?([^?]*)\?=/g;
+  return value
+    .replace(/(=\?[^?]+\?[bqBQ]\?[^?]*\?=)\s+(?==\?)/g, "$1")
+    .replace(word, (_, _charset: string, enc: string, text: string) =>
+      enc.toLowerCase() === "b"
+        ? Buffer.from(text, "base64").toString("utf8")
+        : Buffer.from(text.replace(/_/g, " ").replace(/=([0-9A-F]{2})/gi, (_m, h: string) => String.fromCharCode(parseInt(h, 16))), "latin1").toString("utf8"),
+    )
+    .trim();
+}

@@ -7,7 +7,7 @@ const DASH = "—";
 
 /**
  * A number to `digits` significant figures without trailing zeros or exponent for everyday magnitudes.
- * @example sig(0.012345) // "0.0123"; sig(1234567) // "1230000"
+ * @example sig(0.012345) // "0.0123"; sig(1234567) // "1230000"; sig(1.2e13) // "1.2 × 10¹³"
  */
 export function sig(value: number, digits = 3): string {
   if (!Number.isFinite(value)) return DASH;
@@ -18,7 +18,14 @@ export function sig(value: number, digits = 3): string {
     const decimals = Math.max(0, digits - 1 - Math.floor(Math.log10(abs)));
     return rounded.toFixed(Math.min(decimals, 20)).replace(/(\.\d*?)0+$/, "$1").replace(/\.$/, "");
   }
-  return rounded.toExponential(digits - 1).replace(/\.?0+e/, "e");
+  const [mantissa, exponent] = rounded.toExponential(digits - 1).split("e");
+  const m = mantissa.replace(/\.?0+$/, "");
+  return `${m} × 10${superscript(Number(exponent))}`;
+}
+
+const SUPERSCRIPT = "⁰¹²³⁴⁵⁶⁷⁸⁹";
+function superscript(n: number): string {
+  return `${n < 0 ? "⁻" : ""}${String(Math.abs(n)).split("").map((d) => SUPERSCRIPT[Number(d)]).join("")}`;
 }
 
 const scaled = (value: number, factor: number, unit: string) => (Number.isFinite(value) ? `${sig(value * factor)} ${unit}` : DASH);
@@ -130,7 +137,7 @@ export function formatCellDensity(cellsPerMl: number): string {
 /** The unit kinds `formatQuantity` knows. */
 export type UnitKind =
   | "frequency" | "conductivity" | "length" | "capacitance" | "conductance" | "vpp" | "vrms" | "percent" | "celsius"
-  | "kelvin" | "flow" | "osmolality" | "density" | "relative" | "plain" | "minutes" | "gradient";
+  | "kelvin" | "flow" | "osmolality" | "density" | "relative" | "plain" | "minutes" | "gradient" | "volts";
 
 /**
  * Formats `value` (SI) by unit kind.
@@ -154,6 +161,7 @@ export function formatQuantity(value: number | null, kind: UnitKind): string {
     case "density": return formatCellDensity(value);
     case "minutes": return `${sig(value)} min`;
     case "gradient": return `${sig(value)} m⁻³`;
+    case "volts": return `${sig(value)} V`;
     case "relative":
     case "plain": return sig(value);
   }

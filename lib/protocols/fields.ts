@@ -14,8 +14,8 @@ const WORDS: Record<string, string> = {
   dimensions: "", gradientFactor: "gradient factor Γ", gradientSource: "gradient source", maxVoltageVpp: "generator limit",
   sortDesign: "Sort design", inputMix: "Input mix", targetFraction: "target fraction", limits: "Limit", cellPrep: "Cell preparation",
   washes: "washes", resuspensionCellsPerMl: "resuspension density", notes: "notes", libraryRef: "library item", id: "id", version: "item version",
-  selection: "Selection", frequency: "frequency", band: "band", low: "low edge", high: "high edge", voltageVrms: "drive voltage",
-  voltageVpp: "drive voltage", waveform: "waveform", flowRateUlPerMin: "flow rate", temperatureC: "temperature", predicted: "predicted",
+  selection: "Selection", frequency: "frequency", band: "band", low: "low edge", high: "high edge", voltageVrms: "drive voltage (RMS)",
+  voltageVpp: "drive voltage (peak to peak)", deltaTMaxK: "largest temperature rise", transmembraneMaxV: "largest induced transmembrane potential", waveform: "waveform", flowRateUlPerMin: "flow rate", temperatureC: "temperature", predicted: "predicted",
   recovery: "recovery", purity: "purity", deltaT: "temperature rise", behaviour: "behaviour", reK: "Re[K]", rank: "rank", score: "score",
 };
 
@@ -26,7 +26,7 @@ const UNIT_BY_KEY: Record<string, UnitKind> = {
   voltageVpp: "vpp", maxVoltageVpp: "vpp", voltageVrms: "vrms", flowRateUlPerMin: "flow", temperatureC: "celsius",
   deltaT: "kelvin", recovery: "percent", purity: "percent", osmolality: "osmolality", resuspensionCellsPerMl: "density",
   maxMinutesInBuffer: "minutes", gradientFactor: "gradient", width: "length", gap: "length", height: "length",
-  deltaTMaxK: "kelvin", transmembraneMaxV: "plain",
+  deltaTMaxK: "kelvin", transmembraneMaxV: "volts",
 };
 
 /**

@@ -37,7 +37,7 @@ export default async function ProtocolsPage({ searchParams }: { searchParams: Pr
             <tbody>
               {rows.map((r) => (
                 <tr key={r.protocol.id}>
-                  <td className="font-mono"><Link href={`/protocols/${r.protocol.id}`}>{r.protocol.code}</Link></td>
+                  <td className="whitespace-nowrap font-mono"><Link href={`/protocols/${r.protocol.id}`}>{r.protocol.code}</Link></td>
                   <td>{r.protocol.title}</td>
                   <td className="text-ink-soft"><span className="text-ember">{r.populations.target}</span> vs <span className="text-tide">{r.populations.other}</span></td>
                   <td><Link href={`/protocols/${r.protocol.id}/versions/${r.latest.number}`} className="mr-2">v{r.latest.number}</Link><StatePill state={r.latest.state} /></td>

@@ -10,6 +10,8 @@ describe("lab-unit formatting", () => {
     expect(sig(2.5)).toBe("2.5");
     expect(sig(1234567)).toBe("1230000");
     expect(sig(Number.NaN)).toBe("—");
+    expect(sig(1.2e13)).toBe("1.2 × 10¹³");
+    expect(sig(-3.456e-7)).toBe("-3.46 × 10⁻⁷");
   });
 
   it("formats frequencies in Hz, kHz and MHz", () => {
