@@ -77,35 +77,32 @@ export interface GridResult {
   targetDirection: Int8Array;
 }
 
+/** Re[K] of cell k from its coefficients at one frequency and u = σ/(ε0ω). */
+function reKAt(n0: Float64Array, d0: Float64Array, p: Float64Array, u: number, k: number): number {
+  const pk = p[k];
+  return (n0[k] - u * (pk + 2 * u)) / (d0[k] - 4 * u * (pk - u));
+}
+
 /**
- * Fills out[k] = Re[K] of cell k for k < count from per-cell coefficients at one frequency and u = σ/(ε0ω), and
- * writes into counts[0] / counts[1] how many of the first count − 1 (the sampled cells, not the mean cell) lie
- * above +margin / below −margin.
+ * One pass over the n sampled cells at a grid point: writes Re[K] into out, counts cells above +margin (counts[0])
+ * and below −margin (counts[1]), and writes d·Re[K]·r² of the cells beyond the margin in direction d into vals.
+ * Returns how many were written to vals (none when d = 0).
  */
-function fillReK(n0: Float64Array, d0: Float64Array, p: Float64Array, u: number, out: Float64Array, count: number, margin: number, counts: Int32Array): void {
+function scanCells(n0: Float64Array, d0: Float64Array, p: Float64Array, u: number, r2: Float64Array, n: number, margin: number, d: number, out: Float64Array, vals: Float64Array, counts: Int32Array): number {
   let pos = 0;
   let neg = 0;
-  const last = count - 1;
-  for (let k = 0; k < last; k++) {
+  let m = 0;
+  for (let k = 0; k < n; k++) {
     const pk = p[k];
     const v = (n0[k] - u * (pk + 2 * u)) / (d0[k] - 4 * u * (pk - u));
     out[k] = v;
     pos += v > margin ? 1 : 0;
     neg += v < -margin ? 1 : 0;
+    const dv = d * v;
+    if (dv > margin) vals[m++] = dv * r2[k];
   }
-  const pl = p[last];
-  out[last] = (n0[last] - u * (pl + 2 * u)) / (d0[last] - 4 * u * (pl - u));
   counts[0] = pos;
   counts[1] = neg;
-}
-
-/** Writes d·Re[K]·r² of the cells beyond the margin in direction d into out; returns how many. */
-function collectMoving(rek: Float64Array, r2: Float64Array, n: number, d: number, margin: number, out: Float64Array): number {
-  let m = 0;
-  for (let k = 0; k < n; k++) {
-    const v = d * rek[k];
-    if (v > margin) out[m++] = v * r2[k];
-  }
   return m;
 }
 
@@ -184,8 +181,8 @@ export function evaluateGrid(s: GridSetup): GridResult {
   const nc = s.conductivities.length;
   const n = s.target.cells.length - 1;
   const res = allocate(nf, nc);
-  const tP = new Float64Array(n + 1), tN0 = new Float64Array(n + 1), tD0 = new Float64Array(n + 1), tK = new Float64Array(n + 1);
-  const oP = new Float64Array(n + 1), oN0 = new Float64Array(n + 1), oD0 = new Float64Array(n + 1), oK = new Float64Array(n + 1);
+  const tP = new Float64Array(n + 1), tN0 = new Float64Array(n + 1), tD0 = new Float64Array(n + 1), tK = new Float64Array(n);
+  const oP = new Float64Array(n + 1), oN0 = new Float64Array(n + 1), oD0 = new Float64Array(n + 1), oK = new Float64Array(n);
   const tR2 = s.target.r2;
   const oR2 = s.other.r2;
   const tVals = new Float64Array(n);
@@ -212,22 +209,20 @@ export function evaluateGrid(s: GridSetup): GridResult {
       const sigma = s.conductivities[i];
       const u = sigma * w;
       const idx = i * nf + j;
-      fillReK(tN0, tD0, tP, u, tK, n + 1, margin, counts);
+      const repT = reKAt(tN0, tD0, tP, u, n);
+      const dirT = design <= 1 ? 1 : repT >= 0 ? 1 : -1;
+      const dirO = design === 2 ? -dirT : 1;
+      const tm = scanCells(tN0, tD0, tP, u, tR2, n, margin, moveT || design === 1 ? dirT : 0, tK, tVals, counts);
       const tPos = counts[0];
       const tNeg = counts[1];
-      fillReK(oN0, oD0, oP, u, oK, n + 1, margin, counts);
+      const om = scanCells(oN0, oD0, oP, u, oR2, n, margin, moveO ? dirO : 0, oK, oVals, counts);
       const oPos = counts[0];
       const oNeg = counts[1];
       res.targetPositive[idx] = tPos / n;
       res.targetNegative[idx] = tNeg / n;
       res.otherPositive[idx] = oPos / n;
       res.otherNegative[idx] = oNeg / n;
-
-      const dirT = design <= 1 ? 1 : tK[n] >= 0 ? 1 : -1;
-      const dirO = design === 2 ? -dirT : 1;
       res.targetDirection[idx] = dirT;
-      const tm = moveT || design === 1 ? collectMoving(tK, tR2, n, dirT, margin, tVals) : 0;
-      const om = moveO ? collectMoving(oK, oR2, n, dirO, margin, oVals) : 0;
       const tSlow = moveT ? slowValue(tVals, tm, slowCellQuantile) : 0;
       const oSlow = moveO ? slowValue(oVals, om, slowCellQuantile) : 0;
       // The slowest requirement sets the voltage: the smaller slow-cell value among the populations that must move.
