@@ -24,8 +24,8 @@ function Estimate({ label, unit, e, testId }: { label: string; unit: "uF_cm2" | 
       <p className="text-sm text-ink-soft">{label}</p>
       {e.fitted ? (
         <>
-          <p className="text-xl font-semibold tabular-nums">{formatIn(unit, e.estimate, 3)}</p>
-          <p className="text-sm tabular-nums">{e.confidenceInterval ? `95 % CI ${formatIn(unit, e.confidenceInterval.lower, 3)} to ${formatIn(unit, e.confidenceInterval.upper, 3)}` : "no interval (too few points)"}</p>
+          <p className="text-xl font-semibold tabular-nums" data-testid={`${testId}-value`}>{formatIn(unit, e.estimate, 3)}</p>
+          <p className="text-sm tabular-nums" data-testid={`${testId}-ci`}>{e.confidenceInterval ? `95 % CI ${formatIn(unit, e.confidenceInterval.lower, 3)} to ${formatIn(unit, e.confidenceInterval.upper, 3)}` : "no interval (too few points)"}</p>
           {e.relativeHalfWidth !== null && <p className="text-xs text-ink-muted">± {tidy(e.relativeHalfWidth * 100, 2)} % of the estimate</p>}
         </>
       ) : (
@@ -48,6 +48,7 @@ export function FitWorkbench(p: Props) {
   const [fit, setFit] = useState<MembraneFit | null>(null);
   const [fitError, setFitError] = useState<string | null>(null);
   const [note, setNote] = useState("");
+  const [applyG, setApplyG] = useState(true);
   const [saving, setSaving] = useState(false);
   const [saveMsg, setSaveMsg] = useState<{ ok: boolean; text: string } | null>(null);
   const badRows = useMemo(() => [...new Set(parsed?.errors.map((e) => e.rowNumber) ?? [])], [parsed]);
@@ -70,7 +71,9 @@ export function FitWorkbench(p: Props) {
     setFit(null); setFitError(null); setSaveMsg(null);
     const r = Number(radiusUm.replace(",", "."));
     try {
-      setFit(runCrossoverFit({ csvText: text, dropBadRows: dropBad, radius: toSI("um", r), fitConductance: fitG }).fit);
+      const result = runCrossoverFit({ csvText: text, dropBadRows: dropBad, radius: toSI("um", r), fitConductance: fitG }).fit;
+      setApplyG(result.conductance.fitted && !result.warnings.some((w) => w.parameter === "conductance" && w.code === "parameter-undetermined"));
+      setFit(result);
     } catch (err) {
       setFitError(err instanceof InputError ? err.issues.map((i) => i.message).join(" ") : err instanceof Error ? err.message : String(err));
     }
@@ -83,7 +86,7 @@ export function FitWorkbench(p: Props) {
       const res = await fetch(`/api/v1/library/populations/${p.id}/fit`, {
         method: "POST",
         headers: { "content-type": "application/json" },
-        body: JSON.stringify({ baseVersion: p.baseVersion, fileName, csvText: text, dropBadRows: dropBad, radius: toSI("um", Number(radiusUm.replace(",", "."))), fitConductance: fitG, changeNote: note || undefined }),
+        body: JSON.stringify({ baseVersion: p.baseVersion, fileName, csvText: text, dropBadRows: dropBad, radius: toSI("um", Number(radiusUm.replace(",", "."))), fitConductance: fitG, applyConductance: applyG, changeNote: note || undefined }),
       });
       const body = await res.json();
       if (!res.ok) {
@@ -193,7 +196,13 @@ export function FitWorkbench(p: Props) {
       {fit && (
         <section className="card space-y-3">
           <h2>3. Save into the population</h2>
-          <p className="text-sm text-ink-soft">Saves version {p.baseVersion + 1} of “{p.name}” with C{fit.conductance.fitted ? " and G" : ""} set to the estimates (spreads unchanged), provenance “fitted”, the fit and the data file. The server repeats the fit from the file before saving.</p>
+          <p className="text-sm text-ink-soft">Saves version {p.baseVersion + 1} of “{p.name}” with C{fit.conductance.fitted && applyG ? " and G" : ""} set to the estimate{fit.conductance.fitted && applyG ? "s" : ""} (spreads unchanged), provenance “fitted”, the fit and the data file. The server repeats the fit from the file before saving.</p>
+          {fit.conductance.fitted && (
+            <label className="flex items-start gap-2 text-sm">
+              <input type="checkbox" checked={applyG} onChange={(e) => setApplyG(e.target.checked)} className="mt-1" data-testid="apply-g" />
+              <span>Also store the fitted conductance G = {formatIn("S_m2", fit.conductance.estimate, 3)} (otherwise G stays {formatIn("S_m2", p.currentG, 3)}).{applyG ? "" : " Unticked because the data do not determine G."}</span>
+            </label>
+          )}
           <label className="field">
             <span>Change note</span>
             <input className="input" value={note} onChange={(e) => setNote(e.target.value)} placeholder={`Membrane fitted from ${fileName ?? "the file"}`} />

@@ -5,7 +5,7 @@ import type { ReactNode } from "react";
 /** A labelled input with its unit, hint and error in words. */
 export function NumberField({ label, unit, hint, error, children }: { label: string; unit?: string; hint?: ReactNode; error?: string; children: ReactNode }) {
   return (
-    <div className="field">
+    <label className="field">
       <span>{label}</span>
       <div className="flex items-center gap-2">
         {children}
@@ -13,7 +13,7 @@ export function NumberField({ label, unit, hint, error, children }: { label: str
       </div>
       {hint && <p className="hint">{hint}</p>}
       {error && <p className="field-error">{error}</p>}
-    </div>
+    </label>
   );
 }
 

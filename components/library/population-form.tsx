@@ -20,7 +20,7 @@ function ParamRow({ f, register, errors }: { f: ParamField; register: UseFormReg
   const err = errors[f.key];
   const id = `param-${f.key}`;
   return (
-    <div className="grid grid-cols-1 gap-2 border-b border-paper-line/60 py-2 sm:grid-cols-[14rem_1fr_8rem_9rem]">
+    <div className="grid grid-cols-1 gap-2 border-b border-paper-line/60 py-2 sm:grid-cols-[15rem_minmax(10rem,16rem)_8.5rem_8.5rem]">
       <label htmlFor={id} className="text-sm font-medium text-ink-soft">
         {f.label}{f.optional ? " (optional)" : ""}
         {f.hint && <span className="block text-xs font-normal text-ink-muted">{f.hint}</span>}
@@ -37,7 +37,7 @@ function ParamRow({ f, register, errors }: { f: ParamField; register: UseFormReg
           <div>
             <div className="flex items-center gap-1">
               <input className="input" inputMode="decimal" aria-label={`${f.label} spread (CV %)`} {...register(`params.${f.key}.cv`, { setValueAs: readNumber })} />
-              <span className="text-sm text-ink-muted">% CV</span>
+              <span className="whitespace-nowrap text-sm text-ink-muted">% CV</span>
             </div>
             {err?.cv && <p className="field-error">{err.cv.message}</p>}
           </div>

@@ -7,7 +7,7 @@ export function VersionDiff({ rows, from, to }: { rows: DiffRow[]; from: number;
     <div data-testid="version-diff" className="space-y-2">
       <p className="text-sm text-ink-soft">{changed.length === 0 ? `No differences between v${from} and v${to}.` : `${changed.length} line${changed.length === 1 ? "" : "s"} differ between v${from} and v${to}.`}</p>
       <table>
-        <thead><tr><th>Field</th><th>v{from}</th><th>v{to}</th></tr></thead>
+        <thead><tr><th className="w-56">Field</th><th>v{from}</th><th>v{to}</th></tr></thead>
         <tbody>
           {rows.map((r) => (
             <tr key={r.key} className={r.changed ? "bg-caution-light/60" : "text-ink-muted"}>

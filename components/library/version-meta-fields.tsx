@@ -23,7 +23,7 @@ export function VersionMetaFields({ register, errors, editing }: { register: Use
   return (
     <fieldset className="card space-y-4">
       <legend className="px-1 text-base font-semibold">Provenance and saving</legend>
-      <div className="grid gap-4 sm:grid-cols-[14rem_1fr]">
+      <div className="grid gap-4 sm:grid-cols-[19rem_1fr]">
         <label className="field">
           <span>Where the values come from</span>
           <select className="input" {...register("provenanceKind")}>

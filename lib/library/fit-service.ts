@@ -14,12 +14,14 @@ export const saveFitSchema = z.object({
   dropBadRows: z.boolean(),
   radius: z.number({ error: "Radius: enter the cell radius in µm." }).positive({ error: "Radius: enter the cell radius in µm." }),
   fitConductance: z.boolean().default(true),
+  /** Store the fitted G in the population (default true); false keeps the previous G, e.g. when the data cannot determine it. */
+  applyConductance: z.boolean().default(true),
   changeNote: z.string().trim().max(500).optional(),
 });
 
 /**
  * Re-runs the fit on the server from the uploaded file and saves it as a new version of the population: membrane
- * capacitance (and conductance, when fitted) take the estimates, the spreads stay; provenance "fitted" with the fit
+ * capacitance (and conductance, when fitted and `applyConductance`) take the estimates, the spreads stay; provenance "fitted" with the fit
  * result (estimates, intervals, residuals, warnings, rows left out) and the data file's name and text.
  * @example const item = await saveFittedPopulation(actor, 3, { baseVersion: 1, fileName: "xo.csv", csvText, dropBadRows: true, radius: 6e-6 });
  */
@@ -33,7 +35,7 @@ export async function saveFittedPopulation(actor: Actor, id: number, raw: unknow
   const membrane = {
     ...content.spec.membrane,
     capacitance: { ...content.spec.membrane.capacitance, mean: fit.capacitance.estimate },
-    conductance: fit.conductance.fitted ? { ...content.spec.membrane.conductance, mean: fit.conductance.estimate } : content.spec.membrane.conductance,
+    conductance: fit.conductance.fitted && input.applyConductance ? { ...content.spec.membrane.conductance, mean: fit.conductance.estimate } : content.spec.membrane.conductance,
   };
   const next: PopulationContent = { ...content, spec: { ...content.spec, membrane } };
   const sig = fit.residuals.map((r) => r.conductivity);
@@ -42,10 +44,14 @@ export async function saveFittedPopulation(actor: Actor, id: number, raw: unknow
   const source =
     `Fitted from "${input.fileName}": ${fit.pointCount} first crossovers at ${range}, radius ${formatIn("um", input.radius, 3)} where the file gives none; ` +
     `C = ${formatIn("uF_cm2", fit.capacitance.estimate, 3)}${ci ? ` (95 % CI ${formatIn("uF_cm2", ci.lower, 3)} to ${formatIn("uF_cm2", ci.upper, 3)})` : ""}` +
-    (fit.conductance.fitted ? `, G = ${formatIn("S_m2", fit.conductance.estimate, 3)}` : ", G held at 0") +
+    (fit.conductance.fitted
+      ? input.applyConductance
+        ? `, G = ${formatIn("S_m2", fit.conductance.estimate, 3)}`
+        : `; G kept at ${formatIn("S_m2", content.spec.membrane.conductance.mean, 3)} (fitted ${formatIn("S_m2", fit.conductance.estimate, 3)} not stored)`
+      : ", G held at 0 in the fit (stored G unchanged)") +
     (droppedRows.length ? `; rows left out for errors: ${droppedRows.join(", ")}` : "") +
     (fit.warnings.length ? `; ${fit.warnings.length} fit warning(s)` : "");
-  const stored = { ...fit, csvSummary: parsed.summary.text, csvErrors: parsed.errors, droppedRows, options: { radius: input.radius, fitConductance: input.fitConductance } };
+  const stored = { ...fit, csvSummary: parsed.summary.text, csvErrors: parsed.errors, droppedRows, options: { radius: input.radius, fitConductance: input.fitConductance, applyConductance: input.applyConductance } };
   return (await reviseItem(
     actor,
     "populations",

@@ -112,16 +112,30 @@ export function tidy(value: number, digits = 10): number {
   return Number(value.toPrecision(digits));
 }
 
+const SUPERSCRIPT: Record<string, string> = { "-": "⁻", "0": "⁰", "1": "¹", "2": "²", "3": "³", "4": "⁴", "5": "⁵", "6": "⁶", "7": "⁷", "8": "⁸", "9": "⁹" };
+
+/**
+ * Scientific notation as a scientist writes it.
+ * @example powerOfTen(6.6e13, 2) // "6.6 × 10¹³"
+ */
+export function powerOfTen(v: number, digits = 4): string {
+  const [mantissa, exponent] = v.toExponential(Math.max(0, digits - 1)).split("e");
+  const m = mantissa.includes(".") ? mantissa.replace(/\.?0+$/, "") : mantissa;
+  const e = String(Number(exponent)).replace(/./g, (c) => SUPERSCRIPT[c] ?? c);
+  return `${m} × 10${e}`;
+}
+
 /**
  * Formats an SI value in a lab unit with `digits` significant figures and the unit symbol.
  * @example formatIn("um", 6e-6) // "6 µm"
  * @example formatIn("kHz", 123456, 3) // "123 kHz"
+ * @example formatIn("per_m3", 8.27e12, 3) // "8.27 × 10¹² m⁻³"
  */
 export function formatIn(unit: UnitId, valueSI: number | null | undefined, digits = 4): string {
   if (valueSI === null || valueSI === undefined || !Number.isFinite(valueSI)) return "—";
   const v = fromSI(unit, valueSI);
   const abs = Math.abs(v);
-  const text = abs !== 0 && (abs >= 1e6 || abs < 1e-3) ? v.toExponential(Math.max(0, digits - 1)).replace(/\.?0+e/, "e") : String(Number(v.toPrecision(digits)));
+  const text = abs !== 0 && (abs >= 1e6 || abs < 1e-3) ? powerOfTen(v, digits) : String(Number(v.toPrecision(digits)));
   const symbol = LAB_UNITS[unit].symbol;
   return symbol ? `${text} ${symbol}` : text;
 }

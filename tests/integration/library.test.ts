@@ -152,6 +152,10 @@ describe("library service against MariaDB", () => {
     expect(c.mean).toBeCloseTo(0.01, 3);
     expect(c.cv).toBe(0.1);
     expect(await getDataFile("populations", item.id, 2)).toEqual({ name: "crossovers.csv", text: csv });
+    const g2 = fitted.current.content.spec.membrane!.conductance.mean;
+    const keepG = await saveFittedPopulation(actor, item.id, { ...req, baseVersion: 2, dropBadRows: true, applyConductance: false, changeNote: "refit, keep G" });
+    expect(keepG.current.content.spec.membrane!.conductance.mean).toBe(g2);
+    expect(keepG.current.provenance.source).toMatch(/G kept at/);
   });
 
   it("exports a whole library and imports it back, with a report of what was refused and why", async () => {

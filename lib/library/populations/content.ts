@@ -3,7 +3,7 @@ import { DISTRIBUTIONS, populationSpecSchema, SHELL_MODELS, type PopulationSpec,
 import { fromSI, LAB_UNITS, tidy, toSI } from "@/lib/units/lab";
 import { inLabRange, rangeText } from "../form-numbers";
 import { nameSchema, notesSchema, organisationSchema, versionMetaFormSchema } from "../schemas";
-import { fieldsFor, PARAM_FIELDS, type ParamField } from "./fields";
+import { fieldsFor, MODEL_LABELS, PARAM_FIELDS, type ParamField } from "./fields";
 
 /** What a population is, in the lab's words. */
 export const POPULATION_KINDS = ["live", "dead", "heat-killed", "bead", "other"] as const;
@@ -129,7 +129,7 @@ export function describePopulation(c: PopulationContent): DisplayRow[] {
     { key: "name", label: "Name", value: c.name },
     { key: "kind", label: "Kind", value: POPULATION_KIND_LABELS[c.kind] },
     { key: "organisation", label: "Organisation or project", value: c.organisation || "—" },
-    { key: "model", label: "Shell model", value: c.spec.model },
+    { key: "model", label: "Shell model", value: MODEL_LABELS[c.spec.model] },
   ];
   for (const f of fieldsFor(c.spec.model)) {
     const raw = getPath(c.spec, f.path);

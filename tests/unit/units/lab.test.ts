@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { formatIn, fromSI, LAB_UNITS, tidy, toSI, UNITS_BY_QUANTITY, unitsOf, type UnitId } from "@/lib/units/lab";
+import { formatIn, fromSI, powerOfTen, LAB_UNITS, tidy, toSI, UNITS_BY_QUANTITY, unitsOf, type UnitId } from "@/lib/units/lab";
 
 const ALL = Object.keys(LAB_UNITS) as UnitId[];
 
@@ -59,9 +59,16 @@ describe("lab units", () => {
   it("formats with the unit symbol and significant figures, and a dash for no value", () => {
     expect(formatIn("um", 6e-6)).toBe("6 µm");
     expect(formatIn("kHz", 123456, 3)).toBe("123 kHz");
-    expect(formatIn("per_m3", 6.6e13, 2)).toBe("6.6e+13 m⁻³");
+    expect(formatIn("per_m3", 6.6e13, 2)).toBe("6.6 × 10¹³ m⁻³");
+    expect(formatIn("per_m3", 1e14, 3)).toBe("1 × 10¹⁴ m⁻³");
+    expect(formatIn("S_m", 2.5e-5, 2)).toBe("2.5 × 10⁻⁵ S/m");
     expect(formatIn("mS_m", null)).toBe("—");
     expect(formatIn("mS_m", Number.NaN)).toBe("—");
+  });
+
+  it("writes powers of ten with superscripts", () => {
+    expect(powerOfTen(6.02e23, 3)).toBe("6.02 × 10²³");
+    expect(powerOfTen(-1.5e-9, 2)).toBe("-1.5 × 10⁻⁹");
   });
 
   it("tidy removes float noise without changing real digits", () => {
