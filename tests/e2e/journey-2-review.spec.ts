@@ -47,6 +47,7 @@ test("developer submits, reviewer returns, developer revises, reviewer signs off
 
   await quinn.goto(versionUrl(2));
   await expect(quinn.getByTestId("integrity-ok")).toBeVisible();
+  await expect(quinn.getByTestId("version-spectra")).toBeVisible();
   await snap(quinn, "journey2-04-version-in-review");
   await quinn.getByLabel("Comment to the author").fill("Give the wash centrifugation time and speed in the preparation notes.");
   await quinn.getByRole("button", { name: "Return to author" }).click();

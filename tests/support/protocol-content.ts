@@ -89,8 +89,8 @@ export function yeastProtocolContent(overrides: Partial<ProtocolContent> = {}): 
       request: { frequencies: { min: 1e3, max: 1e8, points: 60 }, conductivities: { min: 1e-3, max: 0.1, points: 20 } },
       result: {
         windows: [
-          { rank: 1, conductivity: 0.0025, band: { low: 2e6, high: 12e6 }, frequency: 5e6, score: 0.82, predicted: { recovery: 0.91, purity: 0.95 } },
-          { rank: 2, conductivity: 0.005, band: { low: 3e6, high: 9e6 }, frequency: 5.5e6, score: 0.71, predicted: { recovery: 0.86, purity: 0.92 } },
+          { rank: 1, conductivity: 0.0025, bandStart: 2e6, bandStop: 12e6, operatingPoint: { frequency: 5e6, conductivity: 0.0025 }, score: 0.82, recovery: 0.91, purity: 0.95 },
+          { rank: 2, conductivity: 0.005, bandStart: 3e6, bandStop: 9e6, operatingPoint: { frequency: 5.5e6, conductivity: 0.005 }, score: 0.71, recovery: 0.86, purity: 0.92 },
         ],
       },
     },

@@ -25,7 +25,7 @@ export async function approvedProtocolWithDraft(opts: { title: string; author: s
   const result = base.plan.result as { windows: Record<string, unknown>[] };
   const replanned = yeastProtocolContent({
     selection: { ...base.selection, frequency: 6e6, voltageVpp: 9, voltageVrms: 3.2, predicted: { recovery: 0.93, purity: 0.96, deltaT: 0.25 } },
-    plan: { ...base.plan, seed: 43, result: { windows: [{ ...result.windows[0], frequency: 6e6, score: 0.85 }, result.windows[1]] } },
+    plan: { ...base.plan, seed: 43, result: { windows: [{ ...result.windows[0], operatingPoint: { frequency: 6e6, conductivity: 0.0025 }, score: 0.85 }, result.windows[1]] } },
   });
   await updateDraft(author, { versionId: v2.id, lockVersion: v2.lockVersion, content: replanned });
   return { protocolId: protocol.id, code: protocol.code };

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { diffContents } from "@/lib/protocols/diff";
 import { describePath } from "@/lib/protocols/fields";
+import { rankedWindows } from "@/lib/protocols/windows";
 import { yeastProtocolContent } from "@/tests/support/protocol-content";
 
 describe("content diff", () => {
@@ -35,5 +36,19 @@ describe("content diff", () => {
     expect(describePath("populations.target.spec.membrane.capacitance.mean")).toEqual({ label: "Target · membrane capacitance", kind: "capacitance" });
     expect(describePath("populations.other.spec.radius.cv")).toEqual({ label: "Other · radius spread (CV)", kind: "percent" });
     expect(describePath("buffer.recipe.additions.0.perLitre").label).toBe("Buffer · recipe addition #1 per litre");
+  });
+});
+
+describe("ranked windows reader", () => {
+  it("reads the planner's shape and the compact shape alike", () => {
+    const planner = rankedWindows({ windows: [{ rank: 2, conductivity: 0.01, bandStart: 1e6, bandStop: 4e6, operatingPoint: { frequency: 2e6 }, recovery: 0.8, purity: 0.9, score: 0.6 }] });
+    const compact = rankedWindows({ windows: [{ rank: 2, conductivity: 0.01, band: { low: 1e6, high: 4e6 }, frequency: 2e6, predicted: { recovery: 0.8, purity: 0.9 }, score: 0.6 }] });
+    expect(planner).toEqual(compact);
+    expect(planner[0]).toEqual({ rank: 2, conductivity: 0.01, frequency: 2e6, band: { low: 1e6, high: 4e6 }, score: 0.6, recovery: 0.8, purity: 0.9 });
+  });
+
+  it("skips entries without rank or conductivity and returns [] for a result without windows", () => {
+    expect(rankedWindows({ windows: [{ rank: 1 }, "x", null] })).toEqual([]);
+    expect(rankedWindows(null)).toEqual([]);
   });
 });

@@ -9,6 +9,8 @@ import { ResultsView } from "@/components/protocols/results-view";
 import { SignaturesList } from "@/components/protocols/signatures-list";
 import { StatePill } from "@/components/protocols/state-pill";
 import { SubmitButton } from "@/components/protocols/submit-button";
+import { VersionSpectra } from "@/components/protocols/version-spectra";
+import { VersionRuns } from "@/components/runs/version-runs";
 import { ApproveForm } from "@/components/review/approve-form";
 import { RetireForm } from "@/components/review/retire-form";
 import { ReturnForm } from "@/components/review/return-form";
@@ -54,7 +56,9 @@ export default async function VersionPage({ params }: { params: Promise<{ id: st
       <div className="grid items-start gap-5 lg:grid-cols-[1fr_22rem]">
         <div className="min-w-0 space-y-5">
           <ResultsView content={c} />
+          <VersionSpectra content={c} />
           <InputsView content={c} />
+          <VersionRuns versionId={v.id} />
         </div>
         <aside className="space-y-5">
           {anyAction && (
