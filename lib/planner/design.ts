@@ -8,7 +8,10 @@ export type SortDesign =
   | { kind: "opposite-deflection" }
   | { kind: "magnitude-deflection" };
 
-/** Plain-language description of each design and the assumptions its numbers rest on. */
+/**
+ * Plain-language description of each design and the assumptions its numbers rest on.
+ * @example describeDesign({ kind: "capture" }) // → "Capture: the target population is held on the electrodes …"
+ */
 export function describeDesign(d: SortDesign): string {
   switch (d.kind) {
     case "capture":

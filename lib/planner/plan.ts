@@ -51,7 +51,10 @@ export interface WindowsResult {
 const round4 = (a: ArrayLike<number>) => Array.from(a, (x) => Math.round(x * 1e4) / 1e4);
 const sig4 = (a: ArrayLike<number>) => Array.from(a, (x) => (Number.isFinite(x) ? Number.parseFloat(x.toPrecision(4)) : null)) as number[];
 
-/** The model statements every result carries. */
+/**
+ * The model statements every result carries.
+ * @example assumptions(resolveRequest(body))[0] // → "Re[K] from the Clausius–Mossotti factor …"
+ */
 export function assumptions(r: ResolvedRequest): string[] {
   return [
     "Re[K] from the Clausius–Mossotti factor of concentric smeared shells (Irimajiri, Hanai & Inouye 1979; Huang et al. 1992); DEP force in the dipole approximation.",
@@ -74,7 +77,11 @@ export function crossoverCurve(spec: Parameters<typeof particleFrom>[1], conduct
   return conductivities.map((s) => crossoverFrequencies(cp, { permittivity, conductivity: s }, { start: fmin, stop: fmax }));
 }
 
-/** Context for building windows from a resolved request and its crossovers. */
+/**
+ * Context for building windows from a resolved request: axes (Hz, S/m), constraints, generator limit (Vrms) and each
+ * population's crossover curve.
+ * @example windowContext(r, r.frequencies, r.conductivities).crossovers[0].byConductivity[0] // → Hz
+ */
 export function windowContext(r: ResolvedRequest, frequencies: number[], conductivities: number[], specs?: Record<string, Parameters<typeof particleFrom>[1]>): WindowContext {
   const pops = [r.target, r.other];
   return {
