@@ -3,7 +3,7 @@ export function CodeBlock({ caption, children }: { caption: string; children: st
   return (
     <figure className="space-y-1">
       <figcaption className="text-xs font-medium uppercase tracking-wide text-ink-muted">{caption}</figcaption>
-      <pre className="overflow-x-auto rounded-md bg-ink px-4 py-3 text-xs leading-relaxed text-paper">
+      <pre className="max-h-80 overflow-auto rounded-md bg-ink px-4 py-3 text-xs leading-relaxed text-paper">
         <code>{children}</code>
       </pre>
     </figure>

@@ -2,7 +2,7 @@
 
 import { useMutation } from "@tanstack/react-query";
 import { useState } from "react";
-import { abbreviateJson } from "@/lib/api/present";
+import { abbreviateJson, readableJson } from "@/lib/api/present";
 
 interface RunResult {
   status: number;
@@ -39,7 +39,7 @@ function statusTone(status: number): string {
 
 /** Sends an example request with the signed-in session and shows the status, timing and a shortened response. */
 export function ExampleRunner({ path, body, operationId }: { path: string; body: unknown; operationId: string }) {
-  const [text, setText] = useState(() => JSON.stringify(body, null, 2));
+  const [text, setText] = useState(() => readableJson(body));
   const mutation = useMutation({ mutationFn: () => run(path, text) });
   const result = mutation.data;
   const serverMs = result?.serverTiming?.match(/app;dur=([\d.]+)/)?.[1];
@@ -62,7 +62,7 @@ export function ExampleRunner({ path, body, operationId }: { path: string; body:
         <button type="button" className="btn" disabled={mutation.isPending} onClick={() => mutation.mutate()}>
           {mutation.isPending ? "Running…" : "Run this example"}
         </button>
-        <button type="button" className="btn-quiet" disabled={mutation.isPending} onClick={() => setText(JSON.stringify(body, null, 2))}>
+        <button type="button" className="btn-quiet" disabled={mutation.isPending} onClick={() => setText(readableJson(body))}>
           Reset body
         </button>
         {result && (
