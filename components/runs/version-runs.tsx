@@ -1,16 +1,20 @@
 import { db } from "@/db/knex";
-import { findVersion } from "@/lib/protocols/repo";
+import { PrintForm } from "@/components/bench/print-form";
+import { checkIntegrity } from "@/lib/protocols/integrity";
+import { findVersion, listSignatures } from "@/lib/protocols/repo";
 import { listRunsForVersion } from "@/lib/runs/repo";
 import { ObservedChart } from "./observed-chart";
 import { RunsTable } from "./runs-table";
 
 /**
- * The runs recorded against a protocol version: predicted against observed recovery and purity, out-of-range
- * conductivity flags, and the list. A server component; the caller has already checked the viewer may see the version.
+ * The bench side of a protocol version: its bench-sheet download, the runs recorded against it, predicted against
+ * observed recovery and purity, and out-of-range conductivity flags. A server component; the caller has already
+ * checked that the viewer may see the version. `showPrint={false}` where the page has its own print form.
  */
-export async function VersionRuns({ versionId }: { versionId: number }) {
-  const [version, runs] = await Promise.all([findVersion(db, versionId), listRunsForVersion(versionId)]);
+export async function VersionRuns({ versionId, showPrint = true }: { versionId: number; showPrint?: boolean }) {
+  const [version, runs, signatures] = await Promise.all([findVersion(db, versionId), listRunsForVersion(versionId), listSignatures(db, [versionId])]);
   if (!version) return null;
+  const benchReady = version.state === "approved" && signatures.length > 0 && checkIntegrity(version.rawContent, version.contentHash, signatures).ok;
   const predicted = version.content.selection.predicted;
   const outOfRange = runs.filter((r) => !r.conductivityAccepted).length;
   const oldestFirst = [...runs].reverse();
@@ -18,13 +22,14 @@ export async function VersionRuns({ versionId }: { versionId: number }) {
   return (
     <section className="card space-y-4" data-testid="version-runs">
       <header className="flex flex-wrap items-baseline justify-between gap-2">
-        <h2>Bench runs ({runs.length})</h2>
+        <h2>Bench sheet and runs ({runs.length})</h2>
         {outOfRange > 0 && (
           <p className="text-sm text-danger" data-testid="runs-out-of-range">
             {outOfRange} run{outOfRange === 1 ? "" : "s"} measured a buffer conductivity outside the acceptance range.
           </p>
         )}
       </header>
+      {showPrint && <PrintForm protocolId={version.protocolId} number={version.number} benchReady={benchReady} />}
       {points.some((p) => p.recovery !== null || p.purity !== null) && <ObservedChart points={points} predicted={predicted} />}
       <RunsTable runs={runs} />
     </section>

@@ -39,10 +39,11 @@ export function frequencyText(hz: number): string {
 }
 
 /**
- * Mass for a balance: 3 decimals below 10 g, 2 decimals from 10 g.
- * @example gramsText(21.25) // "21.25 g"; gramsText(0.75) // "0.750 g"
+ * Mass for a balance: 2 decimals from 10 g, 3 below, and milligrams beside it below 0.1 g.
+ * @example gramsText(21.25) // "21.25 g"; gramsText(0.75) // "0.750 g"; gramsText(0.00666) // "0.0067 g (6.66 mg)"
  */
 export function gramsText(g: number): string {
+  if (g > 0 && g < 0.1) return `${fixed(g, 4)} g (${sig(g * 1000, 3)} mg)`;
   return `${fixed(g, g < 10 ? 3 : 2)} g`;
 }
 

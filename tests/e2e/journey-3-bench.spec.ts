@@ -12,9 +12,9 @@ test.afterAll(async () => {
   await db.destroy();
 });
 
-test("journey 3: technician prints the bench sheet and records a run with an attachment", async ({ page }) => {
+test("journey 3: technician prints the bench sheet and records a run with an attachment", async ({ page, browser }) => {
   const code = `BENCH-${Date.now().toString(36).toUpperCase()}`;
-  await insertBenchVersion(db, { code, state: "approved", title: "Bench journey lymphocytes" });
+  const inserted = await insertBenchVersion(db, { code, state: "approved", title: "Bench journey lymphocytes" });
 
   await signIn(page, DEMO.technician);
   await page.getByRole("link", { name: "Bench", exact: true }).first().click();
@@ -67,4 +67,15 @@ test("journey 3: technician prints the bench sheet and records a run with an att
   await expect(runs).toContainText("within range");
   await expect(page.getByTestId("observed-chart")).toBeVisible();
   await snap(page, "journey-3-04-run-recorded");
+
+  const supervisor = await browser.newPage();
+  await signIn(supervisor, DEMO.supervisor);
+  await supervisor.goto(`/protocols/${inserted.protocolId}/versions/${inserted.number}`);
+  const section = supervisor.getByTestId("version-runs");
+  await expect(section).toContainText("Bench sheet and runs (1)");
+  await expect(section.getByTestId("runs-table")).toContainText("B-E2E-1");
+  await expect(section.getByTestId("observed-chart")).toBeVisible();
+  await section.scrollIntoViewIfNeeded();
+  await snap(supervisor, "journey-3-05-version-page-runs");
+  await supervisor.close();
 });

@@ -46,7 +46,7 @@ describe("bench sheet PDF from a stored version", () => {
     expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
     const { pages, all } = await pdfText(pdf);
     // Recipe for 250 mL, hand-computed from the fixture's per-litre recipe (8.5 % sucrose, 0.3 % glucose, 0.8 mL/L PBS 10×, 0.18 g/L KCl)
-    for (const q of ["21.25 g", "0.750 g", "0.200 mL (200 µL)", "0.045 g", "to 250 mL final volume"]) expect(all).toContain(norm(q));
+    for (const q of ["21.25 g", "0.750 g", "0.200 mL (200 µL)", "0.0450 g (45 mg)", "to 250 mL final volume"]) expect(all).toContain(norm(q));
     // Acceptance: 100 µS/cm ± 10 % at 25 °C; at 20 °C × 0.90 → 81–99 µS/cm (2 %/K, common practice)
     for (const q of ["90 µS/cm to 110 µS/cm", "81 µS/cm", "99 µS/cm", "σ(t) = σ₂₅ · (1 + 0.02 · (t − 25 °C))"]) expect(all).toContain(norm(q));
     for (const q of ["350 kHz", "14.1 Vpp = 5 Vrms", "Sine", "2.5 µL/min", "22 °C", "2 × 10⁶ cells/mL", "45 minutes", "positive DEP: held at the electrode edges"]) expect(all).toContain(norm(q));

@@ -36,7 +36,7 @@ describe("buildBenchSheet", () => {
     const s = text(buildBenchSheet(fixtureSource(), { ...options, volumeMl: 500 }));
     expect(s).toContain("42.50 g"); // hand: 8.5 % w/v × 500 mL / 100 = 42.5 g sucrose
     expect(s).toContain("0.400 mL (400 µL)"); // hand: 0.8 mL/L × 0.5 L
-    expect(s).toContain("0.090 g"); // hand: 0.18 g/L × 0.5 L
+    expect(s).toContain("0.0900 g (90 mg)"); // hand: 0.18 g/L × 0.5 L
     expect(s).toContain('["20 °C","81 µS/cm","99 µS/cm"]'); // hand: 90–110 µS/cm × (1 − 0.10)
     expect(s).toContain('["22 °C (operating)","84.6 µS/cm","103 µS/cm"]'); // hand: × 0.94 → 84.6–103.4
   });

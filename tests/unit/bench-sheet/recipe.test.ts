@@ -45,6 +45,8 @@ describe("scaleRecipe", () => {
   it("prints amounts at balance and pipette resolution", () => {
     expect(gramsText(21.25)).toBe("21.25 g");
     expect(gramsText(0.75)).toBe("0.750 g");
+    expect(gramsText(0.045)).toBe("0.0450 g (45 mg)");
+    expect(gramsText(0.00666)).toBe("0.0067 g (6.66 mg)");
     expect(millilitresText(0.2)).toBe("0.200 mL (200 µL)");
     expect(millilitresText(12.5)).toBe("12.5 mL");
   });

@@ -61,7 +61,7 @@ export default async function BenchVersionPage({ params }: { params: Promise<{ v
           />
         </section>
       )}
-      <VersionRuns versionId={version.id} />
+      <VersionRuns versionId={version.id} showPrint={false} />
     </div>
   );
 }
