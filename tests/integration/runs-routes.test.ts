@@ -1,0 +1,66 @@
+import { mkdtemp } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { POST as postRun } from "@/app/api/v1/runs/route";
+import { GET as getAttachment } from "@/app/api/v1/runs/attachments/[attachmentId]/route";
+import { createToken } from "@/lib/tokens/service";
+import { findUserById, insertUser } from "@/lib/users/repo";
+import { insertBenchVersion, type InsertedVersion } from "@/tests/support/bench-fixture";
+import { closeDb, db, freshSchema } from "./support/db";
+
+/** In-process checks of the run upload and attachment download routes. */
+
+const PNG = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 1, 2, 3, 4]);
+const run = (versionId: number) => ({ versionId, bufferLot: "B-1", conductivityUsPerCm: "98", measuredAtC: "24", operatingTemperatureC: "22", frequencyKHz: "350", voltageVpp: "14.1" });
+
+function post(form: FormData, token: string, headers: Record<string, string> = {}): Promise<Response> {
+  return postRun(new Request("http://test.local/api/v1/runs", { method: "POST", body: form, headers: { authorization: `Bearer ${token}`, ...headers } }), {});
+}
+
+async function tokenFor(email: string, role: "technician" | "developer"): Promise<string> {
+  const id = await insertUser(db, { email, name: "Route Tester", role, passwordHash: "x" });
+  return (await createToken((await findUserById(id))!, { label: "test" })).secret;
+}
+
+describe("POST /api/v1/runs and GET /api/v1/runs/attachments/{id}", () => {
+  let approved: InsertedVersion;
+  let tech = "";
+  let dev = "";
+
+  beforeAll(async () => {
+    await freshSchema();
+    process.env.UPLOAD_DIR = await mkdtemp(path.join(tmpdir(), "sw-run-routes-"));
+    approved = await insertBenchVersion(db, { code: "QH-LYM-01", state: "approved" });
+    tech = await tokenFor("tech.routes@example.test", "technician");
+    dev = await tokenFor("dev.routes@example.test", "developer");
+  });
+  afterAll(closeDb);
+
+  it("stores a multipart run with its file (201) and serves the file back with its detected type", async () => {
+    const form = new FormData();
+    form.set("run", JSON.stringify(run(approved.versionId)));
+    form.append("attachments", new File([PNG], "gate.png"));
+    const res = await post(form, tech);
+    expect(res.status).toBe(201);
+    const { run: saved } = await res.json();
+    expect(saved.conductivityAccepted).toBe(true); // hand: 98 µS/cm at 24 °C → 98 / 0.98 = 100 µS/cm at 25 °C
+    const file = await getAttachment(new Request("http://test.local/x", { headers: { authorization: `Bearer ${tech}` } }), { params: Promise.resolve({ attachmentId: String(saved.attachments[0].id) }) });
+    expect(file.status).toBe(200);
+    expect(file.headers.get("content-type")).toBe("image/png");
+    expect(new Uint8Array(await file.arrayBuffer())).toEqual(PNG);
+  });
+
+  it("refuses a developer (403), a missing run field (400) and a body declared too large (413), storing nothing", async () => {
+    const before = Number((await db("bench_runs").count({ n: "*" }).first())?.n);
+    const form = new FormData();
+    form.set("run", JSON.stringify(run(approved.versionId)));
+    expect((await post(form, dev)).status).toBe(403);
+    const empty = await post(new FormData(), tech);
+    expect(empty.status).toBe(400);
+    expect((await empty.json()).issues[0]).toEqual({ path: "run", message: "The 'run' field (JSON of the run record) is missing." });
+    const huge = await post(form, tech, { "content-length": String(200 * 1024 * 1024) });
+    expect(huge.status).toBe(413);
+    expect(Number((await db("bench_runs").count({ n: "*" }).first())?.n)).toBe(before);
+  });
+});
