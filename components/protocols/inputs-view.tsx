@@ -7,7 +7,7 @@ import { PopulationTable } from "./population-table";
 
 function Rows({ rows }: { rows: [string, React.ReactNode][] }) {
   return (
-    <dl className="grid grid-cols-[minmax(10rem,auto)_1fr] gap-x-4 gap-y-1.5 text-sm">
+    <dl className="grid grid-cols-[minmax(7rem,45%)_1fr] gap-x-4 gap-y-1.5 text-sm">
       {rows.map(([k, v]) => (
         <div key={k} className="contents">
           <dt className="text-ink-soft">{k}</dt>
