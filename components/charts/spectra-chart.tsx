@@ -39,16 +39,17 @@ export function SpectraChart({ lines, marker, title, height = 320 }: { lines: Sp
         domain={{ x: [fMin, fMax], y: [Y_MIN, Y_MAX] }}
         height={height}
         width={720}
-        padding={{ top: 16, bottom: 48, left: 60, right: 20 }}
+        padding={{ top: 16, bottom: 48, left: 74, right: 20 }}
       >
         <VictoryArea data={region(Y_MAX, 0)} style={{ data: { fill: "url(#sw-pdep)", stroke: "none" } }} />
         <VictoryArea data={region(0, Y_MIN)} style={{ data: { fill: "url(#sw-ndep)", stroke: "none" } }} />
-        <VictoryLabel x={66} y={26} text="Positive DEP: pulled toward strong field ↑" style={{ fontSize: 11, fill: "#7a3513", fontWeight: 600 }} />
-        <VictoryLabel x={66} y={height - 58} text="Negative DEP: pushed away from strong field ↓" style={{ fontSize: 11, fill: "#243d70", fontWeight: 600 }} />
+        <VictoryLabel x={80} y={26} text="Positive DEP: pulled toward strong field ↑" style={{ fontSize: 11, fill: "#7a3513", fontWeight: 600 }} />
+        <VictoryLabel x={80} y={height - 60} text="Negative DEP: pushed away from strong field ↓" style={{ fontSize: 11, fill: "#243d70", fontWeight: 600 }} />
         <VictoryAxis
           tickValues={decadeTicks(fMin, fMax)}
           tickFormat={(t: number) => formatFrequency(t, 2)}
           label="Frequency (log scale)"
+          offsetY={48}
           axisLabelComponent={<VictoryLabel dy={8} />}
           style={{ tickLabels: { fontSize: 11, fill: "#3e4c59" }, axisLabel: { fontSize: 12, fill: "#1f2933" }, grid: { stroke: "#d9d4c7", strokeDasharray: "2 4" } }}
         />
@@ -56,7 +57,7 @@ export function SpectraChart({ lines, marker, title, height = 320 }: { lines: Sp
           dependentAxis
           tickValues={[-0.5, -0.25, 0, 0.25, 0.5, 0.75, 1]}
           label="Re[K] (Clausius–Mossotti, real part)"
-          axisLabelComponent={<VictoryLabel dy={-26} />}
+          axisLabelComponent={<VictoryLabel dy={-34} />}
           style={{ tickLabels: { fontSize: 11, fill: "#3e4c59" }, axisLabel: { fontSize: 12, fill: "#1f2933" }, grid: { stroke: "#d9d4c7", strokeDasharray: "2 4" } }}
         />
         <VictoryLine data={region(0, 0)} style={{ data: { stroke: "#1f2933", strokeWidth: 1 } }} />

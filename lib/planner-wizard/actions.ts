@@ -5,6 +5,7 @@ import { revalidatePath } from "next/cache";
 import { requireActionUser } from "@/lib/auth/session";
 import { runAction, type ActionResult } from "@/lib/http/action-result";
 import { InputError } from "@/lib/errors";
+import { saveAsProtocol } from "./save-service";
 import { discardDraft, saveStepInputs, startDraft } from "./service";
 import { isStepSlug } from "./steps";
 
@@ -34,4 +35,18 @@ export async function discardDraftAction(form: FormData): Promise<void> {
   const user = await requireActionUser("plan.run");
   await discardDraft(user, Number(form.get("draftId")));
   revalidatePath("/planner");
+}
+
+/**
+ * Saves the draft's chosen window as a protocol draft (version 1 of a new protocol, or a new version of an existing
+ * one). Field errors come back keyed by the save form's fields.
+ */
+export async function saveProtocolAction(draftId: number, values: unknown): Promise<ActionResult<{ protocolId: number; versionNumber: number; code: string }>> {
+  return runAction(async () => {
+    const user = await requireActionUser("protocol.author");
+    const saved = await saveAsProtocol(user, draftId, values);
+    revalidatePath("/protocols");
+    revalidatePath("/planner");
+    return { ok: true, message: `Saved as ${saved.code ? `${saved.code} ` : ""}version ${saved.versionNumber} (draft).`, data: { protocolId: saved.protocolId, versionNumber: saved.versionNumber, code: saved.code } };
+  });
 }

@@ -182,3 +182,32 @@ export const bufferStepSchema = z
       }
     }
   });
+
+/** A library buffer as stored (SI), reduced to what the wizard copies. */
+export interface LibraryBufferContent {
+  name: string;
+  recipe: { sucrosePercentWV: number; glucosePercentWV: number; additions: { kind: string; amountPerLitre: number }[] } | null;
+  targetConductivity25: number;
+  tolerance: number;
+  measured: { conductivity: number; temperatureC: number } | null;
+  osmolality: number | null;
+  maxMinutesInBuffer: number;
+}
+
+/**
+ * Buffer step values from a library buffer: its recipe when it has one, else its meter reading, else its target.
+ * @example libraryBufferToStep(item, { id: 2, version: 1 }).mode // "recipe"
+ */
+export function libraryBufferToStep(c: LibraryBufferContent, ref: { id: number; version: number }): BufferStepValues {
+  const base = defaultBuffer();
+  const common = { ...base, name: c.name, libraryRef: ref, tolerancePercent: Math.round(c.tolerance * 1000) / 10, maxMinutesInBuffer: c.maxMinutesInBuffer, osmolality: c.osmolality === null ? Number.NaN : c.osmolality * 1000 };
+  if (c.recipe) {
+    const additions = c.recipe.additions.filter((a) => (ADDITION_KINDS as string[]).includes(a.kind)).map((a) => ({ kind: a.kind as AdditionKind, perLitre: a.amountPerLitre }));
+    return { ...common, mode: "recipe", sucrosePercentWV: c.recipe.sucrosePercentWV, glucosePercentWV: c.recipe.glucosePercentWV, additions };
+  }
+  if (c.measured) return { ...common, mode: "measured", measuredConductivity: c.measured.conductivity * 1000, measuredAtC: c.measured.temperatureC };
+  return { ...common, mode: "measured", measuredConductivity: c.targetConductivity25 * 1000, measuredAtC: 25 };
+}
+
+/** Readable label of every salt and stock, as printed in a protocol's recipe. */
+export const SALT_AND_STOCK_LABELS = Object.fromEntries(ADDITION_KINDS.map((k) => [k, isSaltKind(k) ? SALTS[k].label : STOCKS[k as StockKind].label])) as Record<AdditionKind, string>;

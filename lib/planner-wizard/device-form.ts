@@ -129,3 +129,24 @@ export function meanFlowSpeed(flowRateUlPerMin: number, channelWidthUm: number, 
   const q = (flowRateUlPerMin * 1e-9) / 60;
   return q / (channelWidthUm * 1e-6 * channelHeightUm * 1e-6);
 }
+
+/** A library device profile as stored (SI), reduced to what the wizard copies. */
+export interface LibraryDeviceContent {
+  name: string;
+  geometry:
+    | { kind: "interdigitated"; electrodeWidth: number; electrodeGap: number; channelHeight: number }
+    | { kind: "user-gradient"; gradientFactor: number; gradientSource: string; electrodeGap: number; channelHeight: number };
+  generator: { maxVoltageVpp: number };
+}
+
+/**
+ * Device step values from a library device profile (µm from m; the drive and temperature are kept from `current`).
+ * @example libraryDeviceToStep(item, { id: 1, version: 2 }, defaultDevice()).electrodeGap // 20 (µm)
+ */
+export function libraryDeviceToStep(c: LibraryDeviceContent, ref: { id: number; version: number }, current: DeviceStepValues): DeviceStepValues {
+  const um = (m: number) => Math.round(m * 1e9) / 1000;
+  const g = c.geometry;
+  const base = { ...current, name: c.name, libraryRef: ref, electrodeGap: um(g.electrodeGap), channelHeight: um(g.channelHeight), maxVoltageVpp: c.generator.maxVoltageVpp };
+  if (g.kind === "interdigitated") return { ...base, geometry: "interdigitated", electrodeWidth: um(g.electrodeWidth), evalHeight: um(g.electrodeGap / 2) };
+  return { ...base, geometry: "user", gamma: g.gradientFactor, gammaSource: g.gradientSource };
+}

@@ -1,0 +1,151 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useFieldArray, useForm } from "react-hook-form";
+import { formatConductivity, sig } from "@/lib/charts/format";
+import { ADDITION_KINDS, additionUnitLabel, BUFFER_FIELDS, bufferChoice, bufferStepSchema, libraryBufferToStep, predictRecipe, type BufferStepValues, type LibraryBufferContent } from "@/lib/planner-wizard/buffer-form";
+import { labelWithUnit, rangeInWords } from "@/lib/planner-wizard/lab-number";
+import { errorAt, NumField } from "./num-field";
+import { StepFooter } from "./step-footer";
+import { useAutosave } from "./use-autosave";
+
+const MODES = [
+  { value: "recipe", label: "Make it up from a recipe", hint: "Sugar base plus salt or stock; the calculator predicts conductivity and osmolality." },
+  { value: "measured", label: "Use a measured conductivity", hint: "A meter reading of the buffer you have, with its temperature." },
+  { value: "range", label: "Search a conductivity range", hint: "Let the planner find the best conductivity; make the buffer afterwards." },
+] as const;
+
+/** Step 2: the suspending buffer — recipe with computed properties, a measured conductivity, or a range to search. */
+export function BufferStep({ draftId, initial, library }: { draftId: number; initial: BufferStepValues; library: { id: number; version: number; name: string; content: LibraryBufferContent }[] }) {
+  const router = useRouter();
+  const [formError, setFormError] = useState<string | null>(null);
+  const { register, control, handleSubmit, watch, reset, formState: { errors, isSubmitting } } = useForm<BufferStepValues>({ resolver: zodResolver(bufferStepSchema) as never, defaultValues: initial, mode: "onChange" });
+  const additions = useFieldArray({ control, name: "additions" });
+  const values = watch();
+  const { state, saveNow } = useAutosave(draftId, "buffer", values);
+  const prediction = values.mode === "recipe" ? predictRecipe(values) : null;
+  const valid = bufferStepSchema.safeParse(values).success;
+  const choice = valid ? bufferChoice(values) : null;
+  const num = (key: keyof typeof BUFFER_FIELDS, extra?: string) => (
+    <NumField id={`buffer-${key}`} label={labelWithUnit(BUFFER_FIELDS[key])} registration={register(key, { valueAsNumber: true })} error={errorAt(errors, key)} hint={`${rangeInWords(BUFFER_FIELDS[key])}${extra ? `. ${extra}` : ""}`} />
+  );
+
+  async function onValid() {
+    setFormError(null);
+    if (await saveNow("device")) router.push(`/planner/${draftId}/device`);
+  }
+
+  return (
+    <form onSubmit={handleSubmit(onValid, () => setFormError("Some fields need attention; each says what is allowed."))} noValidate className="space-y-6">
+      <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
+        <div className="card space-y-4">
+          <div className="grid gap-4 sm:grid-cols-2">
+            <div className="field">
+              <label htmlFor="buffer-pick" className="mb-1 block font-medium text-ink-soft">Start from a library buffer</label>
+              <select id="buffer-pick" className="input" defaultValue="" onChange={(e) => {
+                const item = library.find((l) => String(l.id) === e.target.value);
+                if (item) reset(libraryBufferToStep(item.content, { id: item.id, version: item.version }));
+              }}>
+                <option value="">— keep what is below —</option>
+                {library.map((l) => <option key={l.id} value={l.id}>{l.name} (v{l.version})</option>)}
+              </select>
+              <p className="hint">{library.length === 0 ? "The buffer library is empty; define the buffer here." : "Copies the buffer; editing here does not change the library."}</p>
+            </div>
+            <div className="field">
+              <label htmlFor="buffer-name" className="mb-1 block font-medium text-ink-soft">Buffer name</label>
+              <input id="buffer-name" className="input" {...register("name")} />
+              {errorAt(errors, "name") && <p className="field-error">{errorAt(errors, "name")}</p>}
+            </div>
+          </div>
+          <fieldset>
+            <legend className="mb-1 text-sm font-medium text-ink-soft">How is the conductivity given?</legend>
+            <div className="grid gap-2 sm:grid-cols-3">
+              {MODES.map((m) => (
+                <label key={m.value} className={`flex cursor-pointer gap-2 rounded-md border p-2 text-sm ${values.mode === m.value ? "border-moss bg-moss-light/50" : "border-paper-line"}`}>
+                  <input type="radio" value={m.value} {...register("mode")} className="mt-1" />
+                  <span><span className="font-medium">{m.label}</span><span className="block text-xs text-ink-muted">{m.hint}</span></span>
+                </label>
+              ))}
+            </div>
+          </fieldset>
+
+          {values.mode === "recipe" && (
+            <fieldset className="space-y-3 rounded-md border border-paper-line p-3">
+              <legend className="px-1 text-sm font-semibold">Recipe</legend>
+              <div className="grid gap-3 sm:grid-cols-2">
+                <NumField id="buffer-volumeMl" label="Batch volume of sugar base (mL)" registration={register("volumeMl", { valueAsNumber: true })} error={errorAt(errors, "volumeMl")} hint="between 1 and 100000 mL" />
+                {num("temperatureC", "The prediction is also given at this temperature, for checking with a meter")}
+                <NumField id="buffer-sucrose" label="Sucrose (% w/v)" registration={register("sucrosePercentWV", { valueAsNumber: true })} error={errorAt(errors, "sucrosePercentWV")} hint="between 0 and 30 % w/v; ≈ 8.5 % with 0.3 % glucose is isotonic" />
+                <NumField id="buffer-glucose" label="Glucose (% w/v)" registration={register("glucosePercentWV", { valueAsNumber: true })} error={errorAt(errors, "glucosePercentWV")} hint="between 0 and 30 % w/v" />
+              </div>
+              <div>
+                <p className="mb-1 text-sm font-medium text-ink-soft">Salt and stock additions, per litre of sugar base</p>
+                <ul className="space-y-2">
+                  {additions.fields.map((f, i) => (
+                    <li key={f.id} className="grid items-start gap-2 sm:grid-cols-[3fr_2fr_auto]">
+                      <div className="field">
+                        <label htmlFor={`buffer-add-${i}-kind`} className="sr-only">Addition {i + 1}</label>
+                        <select id={`buffer-add-${i}-kind`} className="input" {...register(`additions.${i}.kind`)}>
+                          {ADDITION_KINDS.map((k) => <option key={k} value={k}>{additionUnitLabel(k)}</option>)}
+                        </select>
+                      </div>
+                      <NumField id={`buffer-add-${i}-amount`} label={`Amount (${values.additions[i] && values.additions[i].kind in { KCl: 1, NaCl: 1 } ? "g" : "mL"} per litre)`} registration={register(`additions.${i}.perLitre`, { valueAsNumber: true })} error={errorAt(errors, `additions.${i}.perLitre`)} />
+                      <button type="button" className="btn-quiet mt-6" onClick={() => additions.remove(i)} aria-label={`Remove addition ${i + 1}`}>Remove</button>
+                    </li>
+                  ))}
+                </ul>
+                <button type="button" className="btn-quiet mt-2" onClick={() => additions.append({ kind: "PBS1x", perLitre: 1 })}>Add a salt or stock</button>
+                {errorAt(errors, "additions") && <p className="field-error">{errorAt(errors, "additions")}</p>}
+              </div>
+            </fieldset>
+          )}
+          {values.mode === "measured" && (
+            <fieldset className="grid gap-3 rounded-md border border-paper-line p-3 sm:grid-cols-2">
+              <legend className="px-1 text-sm font-semibold">Meter reading</legend>
+              {num("measuredConductivity", "1 mS/m = 10 µS/cm")}
+              {num("measuredAtC", "Converted to 25 °C with 2 %/K")}
+            </fieldset>
+          )}
+          {values.mode === "range" && (
+            <fieldset className="grid gap-3 rounded-md border border-paper-line p-3 sm:grid-cols-2">
+              <legend className="px-1 text-sm font-semibold">Range to search (log-spaced, 31 steps)</legend>
+              {num("rangeLow")}
+              {num("rangeHigh")}
+            </fieldset>
+          )}
+          <fieldset className="grid gap-3 rounded-md border border-paper-line p-3 sm:grid-cols-3">
+            <legend className="px-1 text-sm font-semibold">At the bench</legend>
+            {num("osmolality", "Optional; leave empty if not measured")}
+            <NumField id="buffer-tolerance" label="Accepted conductivity deviation (± %)" registration={register("tolerancePercent", { valueAsNumber: true })} error={errorAt(errors, "tolerancePercent")} hint="between 1 and 50 %" />
+            <NumField id="buffer-minutes" label="Longest time cells stay in this buffer (min)" registration={register("maxMinutesInBuffer", { valueAsNumber: true })} error={errorAt(errors, "maxMinutesInBuffer")} hint="1–240 min; 30–60 min is usual for sugar buffers" step={1} />
+          </fieldset>
+        </div>
+
+        <aside className="card space-y-3" aria-labelledby="buffer-summary" data-testid="buffer-summary">
+          <h2 id="buffer-summary">What the planner will use</h2>
+          {values.mode === "recipe" && prediction?.result && (
+            <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
+              <dt className="text-ink-muted">Conductivity at 25 °C</dt><dd data-testid="recipe-conductivity">{formatConductivity(prediction.result.conductivity25, 3, true)}</dd>
+              <dt className="text-ink-muted">At {values.temperatureC} °C</dt><dd>{formatConductivity(prediction.result.conductivity, 3, true)}</dd>
+              <dt className="text-ink-muted">Osmolality</dt><dd data-testid="recipe-osmolality">{Math.round(prediction.result.osmolality * 1000)} mOsm/kg</dd>
+              <dt className="text-ink-muted">Viscosity</dt><dd>{sig(prediction.result.relativeViscosity, 3)} × water</dd>
+              <dt className="text-ink-muted">Final volume</dt><dd>{sig(prediction.result.finalVolumeL * 1000, 4)} mL</dd>
+            </dl>
+          )}
+          {values.mode === "recipe" && prediction?.result?.warnings.map((w) => <p key={w.code} className="notice">{w.message}</p>)}
+          {values.mode === "recipe" && prediction?.error && <p className="field-error">{prediction.error}</p>}
+          {values.mode !== "recipe" && choice && (
+            <p className="text-sm">{choice.conductivity25 !== null ? `Medium conductivity ${formatConductivity(choice.conductivity25, 3, true)} at 25 °C.` : `Search from ${formatConductivity(choice.range25!.low)} to ${formatConductivity(choice.range25!.high)} at 25 °C.`}</p>
+          )}
+          <p className="text-xs text-ink-muted">Conductivity is converted to the operating temperature of the next step with 2 %/K. Predicted values are estimates: measure the buffer with a calibrated meter and an osmometer before use.</p>
+          {values.mode === "recipe" && prediction?.result && (
+            <details className="text-xs text-ink-soft"><summary className="cursor-pointer">Calculator assumptions</summary><ul className="mt-1 list-disc pl-4">{prediction.result.assumptions.map((a) => <li key={a}>{a}</li>)}</ul></details>
+          )}
+        </aside>
+      </div>
+      <StepFooter backHref={`/planner/${draftId}/populations`} nextLabel="Next: device and drive" state={state} busy={isSubmitting} formError={formError} />
+    </form>
+  );
+}

@@ -1,0 +1,117 @@
+import { evaluateSpectra, type SpectraResult } from "@/lib/dielectric";
+import { particleFrom, type OperatingWindow, type WindowsRequest, type WindowsResult } from "@/lib/planner";
+import { protocolContentSchema, type ProtocolContent } from "@/lib/protocols/content";
+import { parseOrThrow } from "@/lib/http/zod-issues";
+import { isSaltKind, SALT_AND_STOCK_LABELS, type BufferStepValues } from "./buffer-form";
+import { bufferChoice } from "./buffer-form";
+import type { DeviceStepValues } from "./device-form";
+import type { LimitsStepValues } from "./limits-form";
+import type { PopulationsStepOutput } from "./population-form";
+import { behaviourText, toProtocolWarning } from "./results-data";
+import type { SaveStepValues } from "./save-form";
+
+/** Everything the protocol content is built from. */
+export interface ContentSources {
+  populations: PopulationsStepOutput;
+  buffer: BufferStepValues;
+  device: DeviceStepValues;
+  limits: LimitsStepValues;
+  request: WindowsRequest;
+  result: WindowsResult;
+  window: OperatingWindow;
+  save: Pick<SaveStepValues, "washes" | "resuspensionMillionsPerMl" | "notes">;
+  flowRateUlPerMin: number | null;
+}
+
+/** Mean-cell Re[K] of both populations at the operating point. */
+function reKAt(src: ContentSources): { target: number; other: number } {
+  const { frequency, conductivity } = src.window.operatingPoint;
+  const res: SpectraResult = evaluateSpectra({
+    medium: { conductivity, permittivity: src.result.model.medium.permittivity },
+    frequencies: [frequency],
+    particles: [particleFrom("target", src.populations.target.spec), particleFrom("other", src.populations.other.spec)],
+  });
+  return { target: res.particles[0].re[0], other: res.particles[1].re[0] };
+}
+
+/**
+ * The frozen protocol content of a chosen window: populations, buffer, device, limits, cell preparation, the
+ * selection with its predictions, warnings and behaviour text, and the plan (engine version, seed, request, result).
+ * Validated with `protocolContentSchema` (throws InputError naming any bad field).
+ * @example buildContent(src).selection.voltageVpp // 12.4
+ */
+export function buildContent(src: ContentSources): ProtocolContent {
+  const { populations, buffer, device, limits, request, result, window: w } = src;
+  const choice = bufferChoice(buffer);
+  const sigma25 = w.operatingPoint.conductivity / (1 + 0.02 * (device.operatingTemperatureC - 25));
+  const um = (x: number) => x * 1e-6;
+  const geometryDims: Record<string, number> =
+    device.geometry === "interdigitated"
+      ? { electrodeWidth: um(device.electrodeWidth), electrodeGap: um(device.electrodeGap), height: um(device.evalHeight), channelHeight: um(device.channelHeight) }
+      : { electrodeGap: um(device.electrodeGap), channelHeight: um(device.channelHeight) };
+  const content: ProtocolContent = {
+    populations: {
+      target: { name: populations.target.name, ...(populations.target.libraryRef ? { libraryRef: populations.target.libraryRef } : {}), spec: populations.target.spec },
+      other: { name: populations.other.name, ...(populations.other.libraryRef ? { libraryRef: populations.other.libraryRef } : {}), spec: populations.other.spec },
+    },
+    buffer: {
+      name: buffer.name,
+      ...(buffer.libraryRef ? { libraryRef: buffer.libraryRef } : {}),
+      recipe:
+        buffer.mode === "recipe" && choice.recipe
+          ? {
+              sucrosePercentWV: buffer.sucrosePercentWV,
+              glucosePercentWV: buffer.glucosePercentWV,
+              additions: buffer.additions.map((a) => ({ label: SALT_AND_STOCK_LABELS[a.kind], kind: isSaltKind(a.kind) ? "solid" : "stock", perLitre: a.perLitre })),
+              conductivity25: choice.recipe.conductivity25,
+              osmolality: choice.recipe.osmolality * 1000,
+            }
+          : null,
+      targetConductivity25: choice.conductivity25 ?? sigma25,
+      tolerance: buffer.tolerancePercent / 100,
+      osmolality: choice.osmolality === null ? null : choice.osmolality * 1000,
+      maxMinutesInBuffer: buffer.maxMinutesInBuffer,
+    },
+    device: {
+      name: device.name,
+      ...(device.libraryRef ? { libraryRef: device.libraryRef } : {}),
+      geometry: device.geometry === "interdigitated" ? "interdigitated" : "user-gradient",
+      dimensions: geometryDims,
+      gradientFactor: result.model.device.gamma,
+      gradientSource: device.geometry === "interdigitated" ? result.model.device.approximation : `${device.gammaSource} (user value)`,
+      maxVoltageVpp: device.maxVoltageVpp,
+    },
+    sortDesign: result.model.design.description,
+    inputMix: { targetFraction: limits.targetPercent / 100 },
+    limits: {
+      maxTemperatureRiseK: limits.maxTemperatureRise,
+      maxElectrothermalRatio: limits.maxElectrothermalRatio,
+      maxTransmembranePotentialV: limits.maxTransmembranePotential,
+      separationMarginReK: limits.margin,
+      slowCellShare: limits.slowCellPercent / 100,
+      minRecovery: limits.minRecoveryPercent / 100,
+      minPurity: limits.minPurityPercent / 100,
+      osmolalityMinOsmolPerKg: limits.osmolalityMin / 1000,
+      osmolalityMaxOsmolPerKg: limits.osmolalityMax / 1000,
+    },
+    cellPrep: { washes: src.save.washes, resuspensionCellsPerMl: src.save.resuspensionMillionsPerMl * 1e6, notes: src.save.notes },
+    selection: {
+      frequency: w.operatingPoint.frequency,
+      band: { low: w.bandStart, high: w.bandStop },
+      conductivity: w.operatingPoint.conductivity,
+      voltageVrms: w.voltage.rms,
+      voltageVpp: w.voltage.vpp,
+      waveform: "sine",
+      flowRateUlPerMin: src.flowRateUlPerMin,
+      temperatureC: device.operatingTemperatureC,
+      predicted: { recovery: w.recovery, purity: w.purity, deltaT: w.temperatureRise },
+      behaviour: { target: behaviourText(w, "target"), other: behaviourText(w, "other") },
+      reK: reKAt(src),
+      rank: w.rank,
+      score: w.score,
+      warnings: [...w.warnings, ...result.warnings].map(toProtocolWarning),
+    },
+    plan: { engineVersion: result.engineVersion, seed: result.model.seed, request, result },
+  };
+  return parseOrThrow(protocolContentSchema, content);
+}

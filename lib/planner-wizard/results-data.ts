@@ -1,0 +1,125 @@
+import type { OperatingWindow, PlannerWarning, SensitivityResult, WindowsResult } from "@/lib/planner";
+import type { ProtocolWarning } from "@/lib/protocols/content";
+
+/**
+ * Signed separation for the heat map: recovery × purity at each point, positive where the target population moves
+ * by positive DEP there and negative where it moves by negative DEP (from the sampled fractions), so colour hue
+ * gives the target's direction and depth gives how well the pair separates. Row-major like the planner's grid.
+ * @example signedSeparation(result)[0] // between −1 and 1
+ */
+export function signedSeparation(result: Pick<WindowsResult, "map" | "model">): Float64Array {
+  const score = result.map.separationScore;
+  const target = result.map.fractions.find((f) => f.populationId === result.model.targetId) ?? result.map.fractions[0];
+  const out = new Float64Array(score.length);
+  for (let k = 0; k < score.length; k++) {
+    const s = Number.isFinite(score[k]) ? score[k] : 0;
+    const dir = (target?.positive[k] ?? 0) >= (target?.negative[k] ?? 0) ? 1 : -1;
+    out[k] = dir * Math.max(0, Math.min(1, s));
+  }
+  return out;
+}
+
+/**
+ * Crossover curves as polylines over the conductivity rows: the n-th crossover of each row joined to the n-th of
+ * the next; a row without an n-th crossover breaks the line. Points are [frequency Hz, conductivity S/m].
+ * @example crossoverPolylines([[1e5], [2e5]], [0.01, 0.02]) // [[[1e5, 0.01], [2e5, 0.02]]]
+ */
+export function crossoverPolylines(byConductivity: number[][], conductivities: number[]): [number, number][][] {
+  const lines: [number, number][][] = [];
+  const depth = Math.max(0, ...byConductivity.map((r) => r.length));
+  for (let n = 0; n < depth; n++) {
+    let current: [number, number][] = [];
+    byConductivity.forEach((row, i) => {
+      if (row[n] !== undefined) current.push([row[n], conductivities[i]]);
+      else if (current.length) {
+        lines.push(current);
+        current = [];
+      }
+    });
+    if (current.length) lines.push(current);
+  }
+  return lines;
+}
+
+/** One bar pair of the tornado chart: shift of the band (decades) at −1 SD and +1 SD of one parameter. */
+export interface TornadoBar {
+  label: string;
+  populationId: string;
+  low: number | null;
+  high: number | null;
+  lost: boolean;
+  swing: number;
+}
+
+const signedMax = (a: number | null, b: number | null): number | null => {
+  if (a === null && b === null) return null;
+  if (a === null) return b;
+  if (b === null) return a;
+  return Math.abs(a) >= Math.abs(b) ? a : b;
+};
+
+/**
+ * Tornado bars from a sensitivity result: for each parameter the larger band-edge shift at −1 SD and at +1 SD,
+ * sorted by swing (a parameter whose shift loses the window comes first).
+ * @example tornadoBars(sens, { target: "Live", other: "Dead" })[0].label // "Live: membrane.capacitance"
+ */
+export function tornadoBars(s: SensitivityResult, names: Record<string, string>): TornadoBar[] {
+  return s.items
+    .map((it) => {
+      const low = signedMax(it.startShiftDecades.low, it.stopShiftDecades.low);
+      const high = signedMax(it.startShiftDecades.high, it.stopShiftDecades.high);
+      return { label: `${names[it.populationId] ?? it.populationId}: ${parameterLabel(it.parameter)}`, populationId: it.populationId, low, high, lost: it.lost, swing: it.lost ? Infinity : it.swingDecades ?? Math.max(Math.abs(low ?? 0), Math.abs(high ?? 0)) };
+    })
+    .sort((a, b) => b.swing - a.swing);
+}
+
+const PARAMETER_LABELS: Record<string, string> = {
+  radius: "radius",
+  "interior.permittivity": "cytoplasm permittivity",
+  "interior.conductivity": "cytoplasm conductivity",
+  "membrane.capacitance": "membrane capacitance",
+  "membrane.conductance": "membrane conductance",
+  "wall.thickness": "wall thickness",
+  "wall.permittivity": "wall permittivity",
+  "wall.conductivity": "wall conductivity",
+  "nucleus.radiusFraction": "nucleus size",
+  "nucleus.envelope.capacitance": "nuclear envelope capacitance",
+  "nucleus.envelope.conductance": "nuclear envelope conductance",
+  "nucleus.nucleoplasm.permittivity": "nucleoplasm permittivity",
+  "nucleus.nucleoplasm.conductivity": "nucleoplasm conductivity",
+};
+
+/** Plain name of a population parameter path. @example parameterLabel("membrane.capacitance") // "membrane capacitance" */
+export function parameterLabel(path: string): string {
+  return PARAMETER_LABELS[path] ?? path;
+}
+
+/**
+ * A planner warning in the protocol's form (severity "warning" is stored as "caution").
+ * @example toProtocolWarning({ code: "heating", severity: "warning", message: "…", value: 1.2, limit: 1, advice: "…" }).severity // "caution"
+ */
+export function toProtocolWarning(w: PlannerWarning): ProtocolWarning {
+  return { code: w.code, severity: w.severity === "warning" ? "caution" : w.severity, message: w.message, value: w.value, limit: w.limit, advice: w.advice };
+}
+
+/**
+ * What a population does at a window, in words for the bench sheet, from its sampled fractions.
+ * @example behaviourText(window, "target", "capture") // "positive DEP (78 % of cells): pulled to the electrode edges and held"
+ */
+export function behaviourText(w: OperatingWindow, populationId: string): string {
+  const f = w.fractions.find((x) => x.populationId === populationId);
+  if (!f) return "not modelled";
+  const pct = (x: number) => `${Math.round(x * 100)} %`;
+  if (f.positive >= f.negative && f.positive >= f.between) return `positive DEP (${pct(f.positive)} of cells): pulled toward the electrode edges, where the field is strongest`;
+  if (f.negative >= f.between) return `negative DEP (${pct(f.negative)} of cells): pushed away from the electrodes toward field minima`;
+  return `undecided (${pct(f.between)} of cells have |Re[K]| below the margin): weak force, drifts with the flow`;
+}
+
+/**
+ * Mean Re[K] sign proxy of a population at a window: the difference of its positive and negative fractions (−1…1).
+ * @example directionIndex(window, "target") // 0.9
+ */
+export function directionIndex(w: OperatingWindow, populationId: string): number {
+  const f = w.fractions.find((x) => x.populationId === populationId);
+  return f ? f.positive - f.negative : 0;
+}

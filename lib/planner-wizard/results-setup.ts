@@ -1,0 +1,34 @@
+import type { WindowsRequest } from "@/lib/planner";
+import type { WizardInputs } from "./mapper";
+import { mapConductivities, readyInputs, toWindowsRequest } from "./request";
+import type { ResultsProps } from "@/components/planner/results-view";
+
+/**
+ * What the results step needs from a draft: the planner request, the wider map request when the buffer is fixed,
+ * names, specs and the saved selection; or the first incomplete step.
+ * @example const s = resultsSetup(draft.inputs); if (s.ok) s.props.request.medium
+ */
+export function resultsSetup(inputs: WizardInputs):
+  | { ok: true; props: Omit<ResultsProps, "draftId">; request: WindowsRequest }
+  | { ok: false; step: string; message: string } {
+  const ready = readyInputs(inputs);
+  if (!ready.ok) return ready;
+  const request = toWindowsRequest(ready);
+  const fixed = request.medium.conductivity;
+  const mapRequest: WindowsRequest | null = fixed === undefined ? null : { ...request, medium: { ...request.medium, conductivity: undefined, conductivityRange: mapConductivities(fixed) }, samplesPerPopulation: 200, topN: 1 };
+  if (mapRequest) delete (mapRequest.medium as { conductivity?: number }).conductivity;
+  const saved = inputs.results as { rank?: unknown } | undefined;
+  return {
+    ok: true,
+    request,
+    props: {
+      request,
+      mapRequest,
+      names: { target: ready.populations.target.name, other: ready.populations.other.name },
+      specs: { target: ready.populations.target.spec, other: ready.populations.other.spec },
+      initialRank: typeof saved?.rank === "number" ? saved.rank : null,
+      bufferConductivity: fixed ?? null,
+      permittivity: request.medium.permittivity ?? 78.3,
+    },
+  };
+}
