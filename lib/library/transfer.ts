@@ -86,7 +86,7 @@ function checkItem(kind: LibraryKind, raw: unknown): { ok: true; item: z.infer<t
     if (numbers.has(v.version)) reasons.push(`version ${v.version} appears twice`);
     numbers.add(v.version);
     const c = kindInfo(kind).schema.safeParse(v.content);
-    if (!c.success) for (const i of zodIssues(c.error)) reasons.push(`version ${v.version}, ${i.path || "content"}: ${i.message}`);
+    if (!c.success) for (const i of zodIssues(c.error)) reasons.push(`version ${v.version}, ${i.path || "content"}: ${/received undefined$/.test(i.message) ? "missing" : i.message}`);
     else contents.push(c.data);
     if (v.provenance.kind === "fitted" && !v.fit) reasons.push(`version ${v.version}: provenance is "fitted" but the fit and its data file are missing`);
   }
