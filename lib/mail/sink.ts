@@ -20,7 +20,8 @@ function header(raw: string, name: string): string {
 }
 
 function decodeWords(value: string): string {
-  return value.replace(/=\?utf-8\?([bq])\?([^?]*)\?=/gi, (_, enc: string, text: string) =>
+  // RFC 2047 §6.2: white space between adjacent encoded-words is not part of the text.
+  return value.replace(/(=\?[^?]+\?[bq]\?[^?]*\?=)\s+(?==\?)/gi, "$1").replace(/=\?utf-8\?([bq])\?([^?]*)\?=/gi, (_, enc: string, text: string) =>
     enc.toLowerCase() === "b"
       ? Buffer.from(text, "base64").toString("utf8")
       : Buffer.from(text.replace(/_/g, " ").replace(/=([0-9a-f]{2})/gi, (_m, h: string) => String.fromCharCode(parseInt(h, 16))), "latin1").toString("utf8"),
