@@ -31,9 +31,9 @@ export function FitCurveChart({ fit }: { fit: MembraneFit }) {
     <figure className="m-0" data-testid="fit-curve-chart">
       <figcaption className="text-sm font-medium">Measured crossovers and the fitted curve</figcaption>
       <div style={{ aspectRatio: "560 / 300" }}>
-      <VictoryChart scale={{ x: "log", y: "log" }} domain={{ x, y }} width={560} height={300} padding={{ top: 12, bottom: 48, left: 64, right: 16 }}>
+      <VictoryChart scale={{ x: "log", y: "log" }} domain={{ x, y }} width={560} height={300} padding={{ top: 12, bottom: 48, left: 74, right: 16 }}>
         <VictoryAxis tickValues={decades(x[0], x[1])} tickFormat={(t: number) => String(t)} label="Medium conductivity (mS/m, log scale)" axisLabelComponent={<VictoryLabel dy={8} />} style={AXIS} />
-        <VictoryAxis dependentAxis tickValues={decades(y[0], y[1])} tickFormat={(t: number) => String(t)} label="First crossover (kHz, log scale)" axisLabelComponent={<VictoryLabel dy={-30} />} style={AXIS} />
+        <VictoryAxis dependentAxis tickValues={decades(y[0], y[1])} tickFormat={(t: number) => String(t)} label="First crossover (kHz, log scale)" axisLabelComponent={<VictoryLabel dy={-38} />} style={AXIS} />
         {band.length > 1 && <VictoryArea data={band} style={{ data: { fill: "#2f4f8f", fillOpacity: 0.15, stroke: "none" } }} />}
         <VictoryLine data={curve} style={{ data: { stroke: "#2f4f8f", strokeWidth: 2 } }} />
         <VictoryScatter data={pts} size={4.5} style={{ data: { fill: "#ffffff", stroke: "#1f2933", strokeWidth: 1.6 } }} />
@@ -54,9 +54,9 @@ export function ResidualsChart({ fit }: { fit: MembraneFit }) {
     <figure className="m-0" data-testid="residuals-chart">
       <figcaption className="text-sm font-medium">Residuals (measured − fitted, % of measured)</figcaption>
       <div style={{ aspectRatio: "560 / 220" }}>
-      <VictoryChart scale={{ x: "log", y: "linear" }} domain={{ x, y: [-m, m] }} width={560} height={220} padding={{ top: 12, bottom: 48, left: 64, right: 16 }}>
+      <VictoryChart scale={{ x: "log", y: "linear" }} domain={{ x, y: [-m, m] }} width={560} height={220} padding={{ top: 12, bottom: 48, left: 74, right: 16 }}>
         <VictoryAxis tickValues={decades(x[0], x[1])} tickFormat={(t: number) => String(t)} label="Medium conductivity (mS/m, log scale)" axisLabelComponent={<VictoryLabel dy={8} />} style={AXIS} offsetY={48} />
-        <VictoryAxis dependentAxis tickFormat={(t: number) => `${t.toFixed(Math.abs(m) < 5 ? 1 : 0)} %`} label="Residual" axisLabelComponent={<VictoryLabel dy={-30} />} style={AXIS} />
+        <VictoryAxis dependentAxis tickFormat={(t: number) => `${t.toFixed(Math.abs(m) < 5 ? 1 : 0)} %`} label="Residual" axisLabelComponent={<VictoryLabel dy={-38} />} style={AXIS} />
         <VictoryLine data={[{ x: x[0], y: 0 }, { x: x[1], y: 0 }]} style={{ data: { stroke: "#1f2933", strokeWidth: 1 } }} />
         <VictoryScatter data={pts} size={4} symbol="diamond" labels={({ datum }: { datum: { label: string } }) => datum.label} labelComponent={<VictoryLabel dy={-9} style={{ fontSize: 9, fill: "#616e7c" }} />} style={{ data: { fill: "#a4471c" } }} />
       </VictoryChart>
