@@ -2,7 +2,7 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { useRef, useState } from "react";
+import { useState } from "react";
 import { useForm, type FieldPath } from "react-hook-form";
 import type { z } from "zod";
 import { RUN_LIMITS, recordRunSchema } from "@/lib/runs/schemas";
@@ -34,7 +34,8 @@ function NumberInput({ name, register, error, optional }: { name: NumberField; r
 /** The record-a-run form: measured values, observations and attachments, checked in the browser and again on the server. */
 export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: number; defaults: RunDefaults; maxUploadMb: number }) {
   const router = useRouter();
-  const files = useRef<HTMLInputElement>(null);
+  const [files, setFiles] = useState<File[]>([]);
+  const [fileInputKey, setFileInputKey] = useState(0);
   const [status, setStatus] = useState<{ ok: boolean; text: string } | null>(null);
   const [fileError, setFileError] = useState<string | null>(null);
   const initial: In = {
@@ -63,7 +64,7 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
     setFileError(null);
     const body = new FormData();
     body.set("run", JSON.stringify(values));
-    for (const f of Array.from(files.current?.files ?? [])) body.append("attachments", f);
+    for (const f of files) body.append("attachments", f);
     const res = await fetch("/api/v1/runs", { method: "POST", body });
     const json = await res.json().catch(() => ({}));
     if (!res.ok) {
@@ -76,7 +77,8 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
     }
     const run = json.run;
     reset(initial);
-    if (files.current) files.current.value = "";
+    setFiles([]);
+    setFileInputKey((k) => k + 1);
     setStatus({
       ok: true,
       text: `Run recorded. Conductivity ${run.conductivityAccepted ? "within" : "OUTSIDE"} the acceptance range (${(run.conductivity25 * 1e4).toPrecision(3)} µS/cm at 25 °C).`,
@@ -128,7 +130,7 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
       </div>
       <label className="field">
         <span>Attachments (optional)</span>
-        <input ref={files} className="input" type="file" name="attachments" multiple accept=".png,.jpg,.jpeg,.csv,.pdf,image/png,image/jpeg,text/csv,application/pdf" data-testid="run-attachments" />
+        <input key={fileInputKey} onChange={(e) => setFiles(Array.from(e.target.files ?? []))} className="input" type="file" name="attachments" multiple accept=".png,.jpg,.jpeg,.csv,.pdf,image/png,image/jpeg,text/csv,application/pdf" data-testid="run-attachments" />
         <p className="hint">PNG or JPEG images, CSV tables, PDF; up to 5 files of {maxUploadMb} MB each. Files are checked by their content.</p>
         {fileError && <p className="field-error" data-testid="attachments-error">{fileError}</p>}
       </label>
