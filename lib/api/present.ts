@@ -3,13 +3,11 @@
  * JSON response whose arrays can hold tens of thousands of numbers.
  */
 
-const INLINE_WIDTH = 88;
-
 /**
- * Pretty JSON that keeps small arrays and objects of plain values on one line.
+ * Pretty JSON that keeps arrays and objects of plain values on one line when that line fits in `width` characters.
  * @example readableJson({ medium: { conductivity: 0.01, permittivity: 78 } }) // → '{\n  "medium": { "conductivity": 0.01, "permittivity": 78 }\n}'
  */
-export function readableJson(value: unknown, indent = ""): string {
+export function readableJson(value: unknown, width = 88, indent = ""): string {
   if (value === null || typeof value !== "object") return JSON.stringify(value) ?? "null";
   const isArray = Array.isArray(value);
   const entries = isArray ? (value as unknown[]).map((v) => [null, v] as const) : Object.entries(value as Record<string, unknown>);
@@ -19,10 +17,10 @@ export function readableJson(value: unknown, indent = ""): string {
   const flat = entries.every(([, v]) => v === null || typeof v !== "object");
   if (flat) {
     const inline = `${open}${isArray ? "" : " "}${entries.map(([k, v]) => item(k, JSON.stringify(v))).join(", ")}${isArray ? "" : " "}${close}`;
-    if (inline.length + indent.length <= INLINE_WIDTH) return inline;
+    if (inline.length + indent.length <= width) return inline;
   }
   const inner = indent + "  ";
-  return `${open}\n${entries.map(([k, v]) => inner + item(k, readableJson(v, inner))).join(",\n")}\n${indent}${close}`;
+  return `${open}\n${entries.map(([k, v]) => inner + item(k, readableJson(v, width, inner))).join(",\n")}\n${indent}${close}`;
 }
 
 /**
@@ -55,5 +53,5 @@ export function abbreviateJson(value: unknown, keep = 4): string {
     if (v && typeof v === "object") return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, shorten(x)]));
     return v;
   };
-  return readableJson(shorten(value));
+  return readableJson(shorten(value), 160);
 }
