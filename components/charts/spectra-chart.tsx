@@ -1,6 +1,6 @@
 "use client";
 
-import { VictoryArea, VictoryAxis, VictoryChart, VictoryLabel, VictoryLine, VictoryScatter } from "victory";
+import { VictoryArea, VictoryAxis, VictoryChart, VictoryContainer, VictoryLabel, VictoryLine, VictoryScatter } from "victory";
 import { decadeTicks, formatFrequency } from "@/lib/charts/format";
 import type { SpectrumSeries } from "@/lib/planner-wizard/spectra-request";
 import { DepPatterns, DepSwatch } from "./dep-patterns";
@@ -19,6 +19,11 @@ export const POPULATION_STYLES = {
 } as const;
 
 const Y_MIN = -0.55;
+
+/** Text alternative of the chart: each population's crossovers. */
+function describe(lines: SpectrumLine[]): string {
+  return lines.map((l) => `${l.label}: ${l.series.crossovers.length === 0 ? "no crossover in range" : `crossovers at ${l.series.crossovers.map((x) => formatFrequency(x)).join(", ")}`}.`).join(" ");
+}
 const Y_MAX = 1.05;
 
 /**
@@ -31,7 +36,7 @@ export function SpectraChart({ lines, marker, title, height = 320 }: { lines: Sp
   const region = (y: number, y0: number) => [{ x: fMin, y, y0 }, { x: fMax, y, y0 }];
   const crossovers = lines.flatMap((l) => l.series.crossovers.map((x, i) => ({ x, y: 0, key: l.key, label: `${l.key === "target" ? "T" : "O"}${i + 1} ${formatFrequency(x, 3)}` })));
   return (
-    <figure className="m-0">
+    <figure className="m-0" data-testid="spectra-chart">
       <DepPatterns />
       <figcaption className="sr-only">{title}</figcaption>
       <VictoryChart
@@ -40,6 +45,7 @@ export function SpectraChart({ lines, marker, title, height = 320 }: { lines: Sp
         height={height}
         width={720}
         padding={{ top: 16, bottom: 48, left: 74, right: 20 }}
+        containerComponent={<VictoryContainer title={title} desc={describe(lines)} />}
       >
         <VictoryArea data={region(Y_MAX, 0)} style={{ data: { fill: "url(#sw-pdep)", stroke: "none" } }} />
         <VictoryArea data={region(0, Y_MIN)} style={{ data: { fill: "url(#sw-ndep)", stroke: "none" } }} />

@@ -8,7 +8,7 @@ import type { TornadoBar } from "@/lib/planner-wizard/results-data";
  */
 export function TornadoChart({ bars, title }: { bars: TornadoBar[]; title: string }) {
   const rowH = 30;
-  const labelW = 250;
+  const labelW = 360;
   const plotW = 380;
   const maxAbs = Math.max(0.05, ...bars.flatMap((b) => [Math.abs(b.low ?? 0), Math.abs(b.high ?? 0)]));
   const x = (v: number) => labelW + plotW / 2 + (v / maxAbs) * (plotW / 2 - 40);

@@ -19,7 +19,7 @@ export function AppShell({ user, children }: { user: { name: string; email: stri
         </nav>
         <div className="mt-6 border-t border-paper-line pt-4 text-sm">
           <p className="font-medium" data-testid="current-user">{user.name}</p>
-          <p className="text-xs text-ink-muted">{user.email}</p>
+          <p className="text-xs text-ink-soft">{user.email}</p>
           <p className="mt-1"><span className="pill border-moss/40 bg-moss-light text-moss-dark" data-testid="current-role">{ROLE_LABELS[user.role]}</span></p>
           <div className="mt-3 flex gap-2">
             <Link href="/settings" className="text-xs">Settings</Link>

@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { interdigitatedField } from "@/lib/dielectric";
-import { sig } from "@/lib/charts/format";
+import { sci, sig } from "@/lib/charts/format";
 import { DEVICE_FIELDS, deviceStepSchema, EXTRA_UNITS, libraryDeviceToStep, meanFlowSpeed, type DeviceStepValues, type LibraryDeviceContent } from "@/lib/planner-wizard/device-form";
 import { labelWithUnit, rangeInWords } from "@/lib/planner-wizard/lab-number";
 import { errorAt, NumField } from "./num-field";
@@ -35,8 +35,8 @@ export function DeviceStep({ draftId, initial, library }: { draftId: number; ini
   };
   let gammaText = "—";
   try {
-    if (values.geometry === "interdigitated") gammaText = `${sig(interdigitatedField(values.electrodeWidth * 1e-6, values.electrodeGap * 1e-6, values.evalHeight * 1e-6).gamma, 3)} m⁻³ (interdigitated preset, fundamental mode)`;
-    else if (Number.isFinite(values.gamma)) gammaText = `${sig(values.gamma, 3)} m⁻³ (your value)`;
+    if (values.geometry === "interdigitated") gammaText = `${sci(interdigitatedField(values.electrodeWidth * 1e-6, values.electrodeGap * 1e-6, values.evalHeight * 1e-6).gamma, 3)} m⁻³ (interdigitated preset, fundamental mode)`;
+    else if (Number.isFinite(values.gamma)) gammaText = `${sci(values.gamma, 3)} m⁻³ (your value)`;
   } catch {
     gammaText = "— (check the dimensions)";
   }

@@ -155,8 +155,7 @@ export function ResultsView(p: ResultsProps) {
           <h2 id="assumptions-heading-2">Model and assumptions</h2>
           <ul className="list-disc space-y-1 pl-5 text-sm text-ink-soft">
             {result.model.assumptions.map((a) => <li key={a}>{a}</li>)}
-            <li>Field gradient: {result.model.device.approximation}</li>
-            <li>Target DEP speed {sig(result.model.targetSpeed.value * 1e6, 3)} µm/s — {result.model.targetSpeed.source}.</li>
+                        <li>Target DEP speed {sig(result.model.targetSpeed.value * 1e6, 3)} µm/s — {result.model.targetSpeed.source}.</li>
             <li>Engine {result.engineVersion}, planner {result.plannerVersion}, seed {result.model.seed}, {result.model.samplesPerPopulation} cells per population.</li>
           </ul>
           <h2>Before you run it</h2>

@@ -41,3 +41,17 @@ export function sig(x: number, digits = 3): string {
   if (!Number.isFinite(x)) return "—";
   return String(Number(x.toPrecision(digits)));
 }
+
+const SUPERSCRIPT: Record<string, string> = { "-": "⁻", "0": "⁰", "1": "¹", "2": "²", "3": "³", "4": "⁴", "5": "⁵", "6": "⁶", "7": "⁷", "8": "⁸", "9": "⁹" };
+
+/**
+ * Scientific notation as a scientist writes it, for values outside 0.001–10000.
+ * @example sci(6.62e13) // "6.62 × 10¹³"
+ */
+export function sci(x: number, digits = 3): string {
+  if (!Number.isFinite(x)) return "—";
+  if (x === 0 || (Math.abs(x) >= 1e-3 && Math.abs(x) < 1e4)) return sig(x, digits);
+  const e = Math.floor(Math.log10(Math.abs(x)));
+  const m = Number((x / 10 ** e).toPrecision(digits));
+  return `${m} × 10${String(e).split("").map((ch) => SUPERSCRIPT[ch]).join("")}`;
+}

@@ -16,7 +16,7 @@ export const DEVICE_FIELDS = {
   channelWidth: { label: "Channel width", unit: "um", minSI: 1e-6, maxSI: 5e-2 },
   arrayLength: { label: "Electrode array length along the flow", unit: "mm", minSI: 1e-6, maxSI: 0.1 },
   maxVoltageVpp: { label: "Generator limit, peak to peak", unit: "V", minSI: 0.1, maxSI: 1000 },
-  targetSpeed: { label: "Target DEP speed", unit: "um", minSI: 0.1e-6, maxSI: 0.01, hint: "µm per second; about one cell diameter per second is common practice." },
+  targetSpeed: { label: "Target DEP speed", unit: "um", minSI: 0.1e-6, maxSI: 0.01, hint: "About one cell diameter per second is common practice." },
   flowRate: { label: "Flow rate", unit: "V", minSI: 0.001, maxSI: 10000, hint: "Volume per minute through the channel." },
   operatingTemperatureC: { label: "Operating temperature at the chip", unit: "degC", minSI: 0, maxSI: 60 },
 } as const satisfies Record<string, LabFieldSpec>;

@@ -1,4 +1,5 @@
 import { waterPermittivity } from "@/lib/dielectric";
+import { tidy } from "@/lib/units/lab";
 import type { WindowsRequest } from "@/lib/planner/schema";
 import { bufferChoice, bufferStepSchema, type BufferStepValues } from "./buffer-form";
 import { deviceStepSchema, meanFlowSpeed, type DeviceStepValues } from "./device-form";
@@ -55,7 +56,7 @@ export function toWindowsRequest(r: Extract<ReadyInputs, { ok: true }>, seed = D
   const { populations, buffer, device, limits } = r;
   const choice = bufferChoice(buffer);
   const t = device.operatingTemperatureC;
-  const um = (x: number) => x * 1e-6;
+  const um = (x: number) => tidy(x * 1e-6, 12);
   const medium: WindowsRequest["medium"] = {
     temperatureC: t,
     permittivity: waterPermittivity(t),
@@ -72,7 +73,7 @@ export function toWindowsRequest(r: Extract<ReadyInputs, { ok: true }>, seed = D
   const drive =
     device.drive === "speed"
       ? { targetDepSpeed: um(device.targetSpeed) }
-      : { flowSpeed: meanFlowSpeed(device.flowRate, device.channelWidth, device.channelHeight), electrodeArrayLength: device.arrayLength * 1e-3 };
+      : { flowSpeed: meanFlowSpeed(device.flowRate, device.channelWidth, device.channelHeight), electrodeArrayLength: tidy(device.arrayLength * 1e-3, 12) };
   const sortDesign: WindowsRequest["sortDesign"] =
     limits.sortDesign === "capture-target" ? { kind: "capture", captured: "target" }
       : limits.sortDesign === "capture-other" ? { kind: "capture", captured: "other" }

@@ -1,0 +1,84 @@
+import { describe, expect, it } from "vitest";
+import { windowsRequestSchema } from "@/lib/planner";
+import { bufferChoice, bufferStepSchema, defaultBuffer, toEngineRecipe } from "@/lib/planner-wizard/buffer-form";
+import { defaultDevice, deviceStepSchema, meanFlowSpeed } from "@/lib/planner-wizard/device-form";
+import { defaultLimits, limitsStepSchema } from "@/lib/planner-wizard/limits-form";
+import { atOperating, readyInputs, toWindowsRequest } from "@/lib/planner-wizard/request";
+import { STARTING_POINTS } from "@/lib/planner-wizard/starting-points";
+import { completedSteps } from "@/lib/planner-wizard/progress";
+
+const live = STARTING_POINTS.find((s) => s.key === "mammalianViable")!.values;
+const dead = STARTING_POINTS.find((s) => s.key === "mammalianCompromised")!.values;
+const inputs = () => ({ populations: { target: live, other: dead }, buffer: defaultBuffer(), device: defaultDevice(), limits: defaultLimits() });
+
+describe("buffer step", () => {
+  it("scales per-litre additions to the batch for the engine's recipe calculator", () => {
+    const r = toEngineRecipe({ ...defaultBuffer(), volumeMl: 200, additions: [{ kind: "PBS1x", perLitre: 5 }, { kind: "KCl", perLitre: 0.5 }] });
+    expect(r.volumeL).toBe(0.2);
+    expect(r.additions[0]).toEqual({ kind: "PBS1x", volumeL: 0.001 }); // 5 mL/L × 0.2 L = 1 mL (arithmetic)
+    expect(r.additions[1]).toEqual({ kind: "KCl", grams: 0.1 }); // 0.5 g/L × 0.2 L (arithmetic)
+  });
+
+  it("refers a meter reading to 25 °C with 2 %/K", () => {
+    // 12.4 mS/m at 37 °C → 10 mS/m at 25 °C: σ25 = σ/(1 + 0.02·12) (PHYSICS.md §4, common practice).
+    const c = bufferChoice({ ...defaultBuffer(), mode: "measured", measuredConductivity: 12.4, measuredAtC: 37 });
+    expect(c.conductivity25).toBeCloseTo(0.01, 6);
+    expect(atOperating(0.01, 37)).toBeCloseTo(0.0124, 9);
+  });
+
+  it("checks only the chosen mode and says what is allowed", () => {
+    expect(bufferStepSchema.safeParse({ ...defaultBuffer(), mode: "measured", sucrosePercentWV: -4 }).success).toBe(true);
+    const bad = bufferStepSchema.safeParse({ ...defaultBuffer(), mode: "range", rangeLow: 50, rangeHigh: 20 });
+    expect(bad.error!.issues[0].message).toBe("Highest conductivity (mS/m): must be above the lowest (50 mS/m) by at least 5 %.");
+    const high = bufferStepSchema.safeParse({ ...defaultBuffer(), mode: "measured", measuredConductivity: 5000 });
+    expect(high.error!.issues[0].message).toBe("Measured conductivity (mS/m): enter a number between 0.01 and 2000 mS/m.");
+  });
+});
+
+describe("device and limits steps", () => {
+  it("asks for the source of a pasted Γ", () => {
+    const r = deviceStepSchema.safeParse({ ...defaultDevice(), geometry: "user", gamma: 1e14, gammaSource: "" });
+    expect(r.error!.issues.map((i) => i.path.join("."))).toContain("gammaSource");
+  });
+
+  it("converts a flow rate to a mean speed through the channel", () => {
+    // 6 µL/min = 1e-10 m³/s through 1 mm × 100 µm = 1e-7 m² → 1e-3 m/s (arithmetic).
+    expect(meanFlowSpeed(6, 1000, 100)).toBeCloseTo(1e-3, 12);
+  });
+
+  it("starts from the planner library's defaults and refuses an inverted osmolality range", () => {
+    expect(limitsStepSchema.safeParse(defaultLimits()).success).toBe(true);
+    const r = limitsStepSchema.safeParse({ ...defaultLimits(), osmolalityMin: 320, osmolalityMax: 300 });
+    expect(r.error!.issues[0].path).toEqual(["osmolalityMax"]);
+  });
+});
+
+describe("planner request from the wizard's steps", () => {
+  it("builds a request the API's windows schema accepts, in SI", () => {
+    const ready = readyInputs(inputs());
+    expect(ready.ok).toBe(true);
+    if (!ready.ok) return;
+    const req = toWindowsRequest(ready);
+    expect(windowsRequestSchema.safeParse(req).success).toBe(true);
+    expect(req.device.geometry).toEqual({ kind: "interdigitated", electrodeWidth: 20e-6, electrodeGap: 20e-6, height: 10e-6 });
+    expect(req.device.targetDepSpeed).toBe(10e-6);
+    expect(req.medium.conductivity).toBeGreaterThan(0);
+    expect(req.constraints?.minPurity).toBe(0.9);
+    expect(req.sortDesign).toEqual({ kind: "capture", captured: "target" });
+  });
+
+  it("searches a conductivity range when the buffer step gives one", () => {
+    const ready = readyInputs({ ...inputs(), buffer: { ...defaultBuffer(), mode: "range", rangeLow: 1, rangeHigh: 100 } });
+    if (!ready.ok) throw new Error(ready.message);
+    const req = toWindowsRequest(ready);
+    expect(req.medium.conductivity).toBeUndefined();
+    expect(req.medium.conductivityRange).toEqual({ start: 0.001, stop: 0.1, points: 31 });
+    expect(windowsRequestSchema.safeParse(req).success).toBe(true);
+  });
+
+  it("names the first incomplete step and counts completed steps", () => {
+    const r = readyInputs({ ...inputs(), device: { ...defaultDevice(), maxVoltageVpp: Number.NaN } });
+    expect(r).toMatchObject({ ok: false, step: "device" });
+    expect(completedSteps({ populations: { target: live, other: dead }, buffer: defaultBuffer() })).toEqual(["populations", "buffer"]);
+  });
+});
