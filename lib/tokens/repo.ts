@@ -72,13 +72,17 @@ export async function touchToken(id: number): Promise<void> {
 }
 
 /**
- * Counts one request in the token's current minute and returns the count so far (atomic across app instances).
+ * Counts one request in the token's current minute and returns the count including this one. The upsert and the
+ * read run in one transaction, so the row stays locked between them and concurrent requests each see their own
+ * count (exact across app instances).
  */
 export async function countHit(tokenId: number, windowStart: number): Promise<number> {
-  await db.raw(
-    "INSERT INTO api_rate_windows (token_id, window_start, hits) VALUES (?, ?, 1) ON DUPLICATE KEY UPDATE hits = hits + 1",
-    [tokenId, windowStart],
-  );
-  const row = await db("api_rate_windows").where({ token_id: tokenId, window_start: windowStart }).first("hits");
-  return Number(row?.hits ?? 0);
+  return db.transaction(async (trx) => {
+    await trx.raw(
+      "INSERT INTO api_rate_windows (token_id, window_start, hits) VALUES (?, ?, 1) ON DUPLICATE KEY UPDATE hits = hits + 1",
+      [tokenId, windowStart],
+    );
+    const row = await trx("api_rate_windows").where({ token_id: tokenId, window_start: windowStart }).first("hits");
+    return Number(row?.hits ?? 0);
+  });
 }
