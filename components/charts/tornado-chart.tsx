@@ -11,7 +11,7 @@ export function TornadoChart({ bars, title }: { bars: TornadoBar[]; title: strin
   const labelW = 360;
   const plotW = 380;
   const maxAbs = Math.max(0.05, ...bars.flatMap((b) => [Math.abs(b.low ?? 0), Math.abs(b.high ?? 0)]));
-  const x = (v: number) => labelW + plotW / 2 + (v / maxAbs) * (plotW / 2 - 40);
+  const x = (v: number) => labelW + plotW / 2 + (v / maxAbs) * (plotW / 2 - 95);
   const height = bars.length * rowH + 40;
   return (
     <figure className="m-0">

@@ -7,7 +7,7 @@ import { useMemo, useState } from "react";
 import type { SpectraResult } from "@/lib/dielectric";
 import type { SensitivityResult, WindowsRequest, WindowsResult } from "@/lib/planner";
 import type { PopulationSpec } from "@/lib/populations/spec";
-import { formatConductivity, formatFrequency, sig } from "@/lib/charts/format";
+import { formatConductivity, formatFrequency, sci, sig } from "@/lib/charts/format";
 import { postJson } from "@/lib/planner-wizard/api-client";
 import { crossoverPolylines, parameterLabel, signedSeparation, tornadoBars } from "@/lib/planner-wizard/results-data";
 import { spectraBody, toSeries } from "@/lib/planner-wizard/spectra-request";
@@ -128,7 +128,7 @@ export function ResultsView(p: ResultsProps) {
             <div><dt className="text-ink-muted">Predicted recovery / purity</dt><dd>{sig(selected.recovery * 100, 3)} % / {sig(selected.purity * 100, 3)} %</dd></div>
             <div><dt className="text-ink-muted">Joule ΔT</dt><dd>{sig(selected.temperatureRise, 2)} K</dd></div>
             <div><dt className="text-ink-muted">Transmembrane potential</dt><dd>{selected.transmembranePotential === null ? "—" : `${sig(selected.transmembranePotential, 2)} V`}</dd></div>
-            <div><dt className="text-ink-muted">Electrothermal / DEP speed</dt><dd>{selected.electrothermalRatio === null ? "—" : sig(selected.electrothermalRatio, 2)}</dd></div>
+            <div><dt className="text-ink-muted">Electrothermal / DEP speed</dt><dd>{selected.electrothermalRatio === null ? "—" : sci(selected.electrothermalRatio, 2)}</dd></div>
             <div><dt className="text-ink-muted">AC electro-osmosis</dt><dd>{selected.acElectroosmosis}</dd></div>
             {selected.crossoverMargins.map((m) => (
               <div key={m.populationId}><dt className="text-ink-muted">Margin to nearest crossover, {p.names[m.populationId as "target" | "other"] ?? m.populationId}</dt><dd>{m.marginDecades === null ? "no crossover nearby" : `${sig(m.marginDecades, 2)} decades (${formatFrequency(m.nearestCrossover ?? NaN)})`}</dd></div>
