@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useFieldArray, useForm } from "react-hook-form";
+import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { formatConductivity, sig } from "@/lib/charts/format";
 import { ADDITION_KINDS, additionUnitLabel, BUFFER_FIELDS, bufferChoice, bufferStepSchema, libraryBufferToStep, predictRecipe, type BufferStepValues, type LibraryBufferContent } from "@/lib/planner-wizard/buffer-form";
 import { labelWithUnit, rangeInWords } from "@/lib/planner-wizard/lab-number";
@@ -21,9 +21,9 @@ const MODES = [
 export function BufferStep({ draftId, initial, library }: { draftId: number; initial: BufferStepValues; library: { id: number; version: number; name: string; content: LibraryBufferContent }[] }) {
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
-  const { register, control, handleSubmit, watch, reset, formState: { errors, isSubmitting } } = useForm<BufferStepValues>({ resolver: zodResolver(bufferStepSchema) as never, defaultValues: initial, mode: "onChange" });
+  const { register, control, handleSubmit, reset, formState: { errors, isSubmitting } } = useForm<BufferStepValues>({ resolver: zodResolver(bufferStepSchema) as never, defaultValues: initial, mode: "onChange" });
   const additions = useFieldArray({ control, name: "additions" });
-  const values = watch();
+  const values = useWatch({ control }) as BufferStepValues;
   const { state, saveNow } = useAutosave(draftId, "buffer", values);
   const prediction = values.mode === "recipe" ? predictRecipe(values) : null;
   const valid = bufferStepSchema.safeParse(values).success;

@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { interdigitatedField } from "@/lib/dielectric";
 import { sci, sig } from "@/lib/charts/format";
 import { DEVICE_FIELDS, deviceStepSchema, EXTRA_UNITS, libraryDeviceToStep, meanFlowSpeed, type DeviceStepValues, type LibraryDeviceContent } from "@/lib/planner-wizard/device-form";
@@ -26,8 +26,8 @@ const range = (key: Key) => {
 export function DeviceStep({ draftId, initial, library }: { draftId: number; initial: DeviceStepValues; library: { id: number; version: number; name: string; content: LibraryDeviceContent }[] }) {
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, watch, reset, getValues, formState: { errors, isSubmitting } } = useForm<DeviceStepValues>({ resolver: zodResolver(deviceStepSchema) as never, defaultValues: initial, mode: "onChange" });
-  const values = watch();
+  const { register, control, handleSubmit, reset, getValues, formState: { errors, isSubmitting } } = useForm<DeviceStepValues>({ resolver: zodResolver(deviceStepSchema) as never, defaultValues: initial, mode: "onChange" });
+  const values = useWatch({ control }) as DeviceStepValues;
   const { state, saveNow } = useAutosave(draftId, "device", values);
   const num = (key: Key) => {
     const spec = DEVICE_FIELDS[key];

@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { defaultConstraints } from "@/lib/planner/constraints";
 import { ACEO_LEVELS, defaultLimits, defaultText, LIMIT_FIELDS, limitsStepSchema, SORT_DESIGNS, type LimitsStepValues, type SortDesignKey } from "@/lib/planner-wizard/limits-form";
 import { errorAt } from "./num-field";
@@ -14,8 +14,8 @@ import { useAutosave } from "./use-autosave";
 export function LimitsStep({ draftId, initial }: { draftId: number; initial: LimitsStepValues }) {
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, watch, setValue, formState: { errors, isSubmitting } } = useForm<LimitsStepValues>({ resolver: zodResolver(limitsStepSchema) as never, defaultValues: initial, mode: "onChange" });
-  const values = watch();
+  const { register, control, handleSubmit, setValue, formState: { errors, isSubmitting } } = useForm<LimitsStepValues>({ resolver: zodResolver(limitsStepSchema) as never, defaultValues: initial, mode: "onChange" });
+  const values = useWatch({ control }) as LimitsStepValues;
   const { state, saveNow } = useAutosave(draftId, "limits", values);
   const defaults = defaultLimits();
 

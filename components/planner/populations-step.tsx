@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { populationFormSchema, populationsStepSchema, type PopulationsStepOutput, type PopulationsStepValues } from "@/lib/planner-wizard/population-form";
 import type { StartingPoint } from "@/lib/planner-wizard/starting-points";
 import { PopulationEditor, type LibraryPopulation } from "./population-editor";
@@ -22,12 +22,12 @@ export function PopulationsStep({ draftId, initial, library, starts, medium, med
 }) {
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, watch, setValue, formState: { errors, isSubmitting } } = useForm<PopulationsStepValues, unknown, PopulationsStepOutput>({
+  const { register, control, handleSubmit, setValue, formState: { errors, isSubmitting } } = useForm<PopulationsStepValues, unknown, PopulationsStepOutput>({
     resolver: zodResolver(populationsStepSchema),
     defaultValues: initial,
     mode: "onChange",
   });
-  const values = watch();
+  const values = useWatch({ control }) as PopulationsStepValues;
   const { state, saveNow } = useAutosave(draftId, "populations", values);
   const json = JSON.stringify(values);
   const preview = useMemo<PreviewInput>(() => {

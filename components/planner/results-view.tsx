@@ -40,7 +40,7 @@ export function ResultsView(p: ResultsProps) {
   const windowsQ = useQuery({ queryKey: ["windows", p.request], queryFn: ({ signal }) => postJson<WindowsResult>("/api/v1/windows", p.request, signal), placeholderData: keepPreviousData, staleTime: Infinity });
   const mapQ = useQuery({ queryKey: ["windows-map", p.mapRequest], queryFn: ({ signal }) => postJson<WindowsResult>("/api/v1/windows", p.mapRequest, signal), enabled: p.mapRequest !== null, placeholderData: keepPreviousData, staleTime: Infinity });
   const result = windowsQ.data;
-  const windows = result?.windows ?? [];
+  const windows = useMemo(() => result?.windows ?? [], [result]);
   const selected = windows.find((w) => w.rank === rank) ?? windows[0] ?? null;
   const selRank = selected?.rank ?? null;
   const { state, saveNow } = useAutosave(p.draftId, "results", { rank: selRank, windowIndex: selected ? windows.indexOf(selected) : null, window: selected ? { conductivity: selected.conductivity, bandStart: selected.bandStart, bandStop: selected.bandStop } : null });

@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { saveProtocolAction } from "@/lib/planner-wizard/actions";
 import { saveStepSchema, type SaveStepValues } from "@/lib/planner-wizard/save-form";
 import { errorAt, NumField } from "./num-field";
@@ -14,8 +14,8 @@ import { useAutosave } from "./use-autosave";
 export function SaveStep({ draftId, initial, protocols, summary }: { draftId: number; initial: SaveStepValues; protocols: { id: number; label: string }[]; summary: string | null }) {
   const [done, setDone] = useState<{ protocolId: number; message: string } | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, watch, setError, formState: { errors, isSubmitting } } = useForm<SaveStepValues>({ resolver: zodResolver(saveStepSchema), defaultValues: initial, mode: "onChange" });
-  const values = watch();
+  const { register, control, handleSubmit, setError, formState: { errors, isSubmitting } } = useForm<SaveStepValues>({ resolver: zodResolver(saveStepSchema), defaultValues: initial, mode: "onChange" });
+  const values = useWatch({ control }) as SaveStepValues;
   const { state } = useAutosave(draftId, "save", values);
 
   async function onValid(v: SaveStepValues) {

@@ -23,14 +23,14 @@ export function useDebounced<T>(value: T, delayMs = 400): T {
  * @example const showSpinner = useSlow(query.isFetching, 200);
  */
 export function useSlow(active: boolean, afterMs = 200): boolean {
-  const [slow, setSlow] = useState(false);
+  const [slowSince, setSlowSince] = useState<boolean>(false);
   useEffect(() => {
-    if (!active) {
-      setSlow(false);
-      return;
-    }
-    const t = setTimeout(() => setSlow(true), afterMs);
-    return () => clearTimeout(t);
+    if (!active) return;
+    const t = setTimeout(() => setSlowSince(true), afterMs);
+    return () => {
+      clearTimeout(t);
+      setSlowSince(false);
+    };
   }, [active, afterMs]);
-  return slow;
+  return active && slowSince;
 }
