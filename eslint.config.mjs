@@ -10,6 +10,8 @@ const config = [
   {
     rules: {
       "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
+      // Advice for the React Compiler, which this project does not enable; react-hook-form's watch() triggers it.
+      "react-hooks/incompatible-library": "off",
     },
   },
 ];
