@@ -16,6 +16,9 @@ export APP_BASE_URL=http://127.0.0.1:3100
 export SMTP_HOST=127.0.0.1 SMTP_PORT="${TEST_SMTP_PORT:-2626}" SMTP_FROM="Sievewright <no-reply@sievewright.test>"
 export MAIL_SINK_DIR="$RUN_DIR/mail" OUTBOX_POLL_MS=300 UPLOAD_DIR="$RUN_DIR/uploads" RATE_LIMIT_PER_MINUTE=100000
 
+port_free "$APP_PORT" || die "Port $APP_PORT is in use; the end-to-end tests serve the app there. Stop what uses it (ss -ltnp | grep :$APP_PORT)."
+port_free "$SMTP_PORT" || die "Port $SMTP_PORT is in use; the tests run their SMTP sink there. Stop what uses it or set TEST_SMTP_PORT."
+
 PIDS=()
 cleanup() {
   trap - INT TERM EXIT
