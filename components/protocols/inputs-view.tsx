@@ -53,7 +53,7 @@ export function InputsView({ content }: { content: ProtocolContent }) {
           <Rows
             rows={[
               ["Geometry", device.geometry],
-              ...Object.entries(device.dimensions).map(([k, v]): [string, string] => [k[0].toUpperCase() + k.slice(1), formatQuantity(v, describePath(k).kind)]),
+              ...Object.entries(device.dimensions).map(([k, v]): [string, string] => [capital(describePath(k).label), formatQuantity(v, describePath(k).kind)]),
               ["Gradient factor Γ", `${formatQuantity(device.gradientFactor, "gradient")} (${device.gradientSource})`],
               ["Generator limit", formatVpp(device.maxVoltageVpp)],
               ["Sort design", content.sortDesign],

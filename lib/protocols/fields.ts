@@ -17,6 +17,11 @@ const WORDS: Record<string, string> = {
   selection: "Selection", frequency: "frequency", band: "band", low: "low edge", high: "high edge", voltageVrms: "drive voltage (RMS)",
   voltageVpp: "drive voltage (peak to peak)", deltaTMaxK: "largest temperature rise", transmembraneMaxV: "largest induced transmembrane potential", waveform: "waveform", flowRateUlPerMin: "flow rate", temperatureC: "temperature", predicted: "predicted",
   recovery: "recovery", purity: "purity", deltaT: "temperature rise", behaviour: "behaviour", reK: "Re[K]", rank: "rank", score: "score",
+  electrodeWidth: "electrode width", electrodeGap: "electrode gap", channelHeight: "channel height", width: "width", gap: "gap",
+  maxTemperatureRiseK: "largest temperature rise", maxElectrothermalRatio: "largest electrothermal/DEP speed ratio",
+  maxTransmembranePotentialV: "largest induced transmembrane potential", separationMarginReK: "separation margin on Re[K]",
+  slowCellShare: "slow-cell share sized for", minRecovery: "lowest acceptable recovery", minPurity: "lowest acceptable purity",
+  osmolalityMinOsmolPerKg: "lowest osmolality (osmol/kg)", osmolalityMaxOsmolPerKg: "highest osmolality (osmol/kg)",
 };
 
 const UNIT_BY_KEY: Record<string, UnitKind> = {
@@ -26,7 +31,8 @@ const UNIT_BY_KEY: Record<string, UnitKind> = {
   voltageVpp: "vpp", maxVoltageVpp: "vpp", voltageVrms: "vrms", flowRateUlPerMin: "flow", temperatureC: "celsius",
   deltaT: "kelvin", recovery: "percent", purity: "percent", osmolality: "osmolality", resuspensionCellsPerMl: "density",
   maxMinutesInBuffer: "minutes", gradientFactor: "gradient", width: "length", gap: "length", height: "length",
-  deltaTMaxK: "kelvin", transmembraneMaxV: "volts",
+  deltaTMaxK: "kelvin", transmembraneMaxV: "volts", electrodeWidth: "length", electrodeGap: "length", channelHeight: "length",
+  maxTemperatureRiseK: "kelvin", maxTransmembranePotentialV: "volts", slowCellShare: "percent", minRecovery: "percent", minPurity: "percent",
 };
 
 /**
