@@ -5,6 +5,7 @@ import { LIMITS } from "@/lib/dielectric/limits";
 import { createToken } from "@/lib/tokens/service";
 import { findUserById } from "@/lib/users/repo";
 import { DEMO, signIn, snap } from "./support/auth";
+import { releaseDb } from "./support/db";
 
 /** The public JSON API through real HTTP against the built app. */
 
@@ -54,7 +55,7 @@ test.describe("public JSON API", () => {
     techToken = (await createToken((await findUserById(Number(tech.id)))!, { label: "e2e technician" })).secret;
   });
   test.afterAll(async () => {
-    await db.destroy();
+    await releaseDb();
   });
 
   test("the OpenAPI document is valid JSON listing every route, the bearer scheme and the error responses", async ({ request }) => {

@@ -4,12 +4,13 @@ import { PDFParse } from "pdf-parse";
 import { db } from "@/db/knex";
 import { insertBenchVersion } from "@/tests/support/bench-fixture";
 import { DEMO, signIn, snap } from "./support/auth";
+import { releaseDb } from "./support/db";
 
 const PNG = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, ...new Array(64).fill(0)]);
 const ZIP = Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x14, 0x00, 0x00, 0x00]);
 
 test.afterAll(async () => {
-  await db.destroy();
+  await releaseDb();
 });
 
 test("journey 3: technician prints the bench sheet and records a run with an attachment", async ({ page, browser }) => {

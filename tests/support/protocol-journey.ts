@@ -1,8 +1,8 @@
-import { db } from "@/db/knex";
 import { findCredentialsByEmail } from "@/lib/users/repo";
 import { approveVersion } from "@/lib/protocols/review";
 import { createProtocol, newVersion, submitVersion, updateDraft, type Actor } from "@/lib/protocols/service";
 import { yeastProtocolContent } from "./protocol-content";
+import { releaseDb } from "@/tests/e2e/support/db";
 
 /**
  * Test-only set-up for the review journey, run from the Playwright process against the e2e database (same env as the
@@ -40,5 +40,5 @@ async function actor(email: string): Promise<Actor> {
 
 /** Closes the Playwright process's database pool. */
 export async function closeJourneyDb(): Promise<void> {
-  await db.destroy();
+  await releaseDb();
 }
