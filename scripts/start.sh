@@ -51,8 +51,8 @@ cat <<MSG
   Sievewright is running at http://127.0.0.1:$APP_PORT   (Ctrl-C stops everything)
 
   Demo accounts (password for all: sievewright-demo)
-    dana.dev@example.test     assay developer
-    quinn.qa@example.test     QA reviewer
+    dana.dev@example.test     assay developer     (lee.dev@example.test too)
+    quinn.qa@example.test     QA reviewer         (rhea.qa@example.test too)
     tomas.tech@example.test   technician
     sam.super@example.test    supervisor
     ari.admin@example.test    admin
