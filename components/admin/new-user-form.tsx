@@ -7,11 +7,13 @@ import type { z } from "zod";
 import { ROLE_LABELS, ROLES } from "@/lib/auth/roles";
 import { createUserAction } from "@/lib/users/actions";
 import { createUserSchema } from "@/lib/users/schemas";
+import { useHydrated } from "@/components/forms/use-hydrated";
 
 type FormValues = z.input<typeof createUserSchema>;
 
 /** Creates an account; field errors from the server land next to their field. */
 export function NewUserForm() {
+  const hydrated = useHydrated();
   const [status, setStatus] = useState<{ ok: boolean; text: string } | null>(null);
   const { register, handleSubmit, setError, reset, formState: { errors, isSubmitting } } = useForm<FormValues>({
     resolver: zodResolver(createUserSchema),
@@ -57,7 +59,7 @@ export function NewUserForm() {
         {errors.password && <p className="field-error">{errors.password.message}</p>}
       </label>
       <div className="sm:col-span-2 flex items-center gap-3">
-        <button className="btn" type="submit" disabled={isSubmitting}>Create account</button>
+        <button className="btn" type="submit" disabled={!hydrated || isSubmitting}>Create account</button>
         {status && <p className={`text-sm ${status.ok ? "text-moss-dark" : "text-danger"}`} role="status">{status.text}</p>}
       </div>
     </form>

@@ -6,9 +6,11 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { signInSchema, type SignInInput } from "@/lib/users/schemas";
+import { useHydrated } from "@/components/forms/use-hydrated";
 
 /** E-mail and password form; a refusal is shown in words, never as a crash. */
 export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
+  const hydrated = useHydrated();
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
   const {
@@ -45,7 +47,7 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
           {failure}
         </p>
       )}
-      <button type="submit" className="btn w-full justify-center" disabled={isSubmitting}>
+      <button type="submit" className="btn w-full justify-center" disabled={!hydrated || isSubmitting}>
         {isSubmitting ? "Signing in…" : "Sign in"}
       </button>
     </form>

@@ -6,6 +6,7 @@ import { useState } from "react";
 import { useForm, type FieldPath } from "react-hook-form";
 import type { z } from "zod";
 import { RUN_LIMITS, recordRunSchema } from "@/lib/runs/schemas";
+import { useHydrated } from "@/components/forms/use-hydrated";
 
 type In = z.input<typeof recordRunSchema>;
 type Out = z.output<typeof recordRunSchema>;
@@ -33,6 +34,7 @@ function NumberInput({ name, register, error, optional }: { name: NumberField; r
 
 /** The record-a-run form: measured values, observations and attachments, checked in the browser and again on the server. */
 export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: number; defaults: RunDefaults; maxUploadMb: number }) {
+  const hydrated = useHydrated();
   const router = useRouter();
   const [files, setFiles] = useState<File[]>([]);
   const [fileInputKey, setFileInputKey] = useState(0);
@@ -135,7 +137,7 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
         {fileError && <p className="field-error" data-testid="attachments-error">{fileError}</p>}
       </label>
       <div className="flex items-center gap-3">
-        <button className="btn" type="submit" disabled={isSubmitting}>{isSubmitting ? "Saving…" : "Record run"}</button>
+        <button className="btn" type="submit" disabled={!hydrated || isSubmitting}>{isSubmitting ? "Saving…" : "Record run"}</button>
         {status && <p className={`text-sm ${status.ok ? "text-moss-dark" : "text-danger"}`} role="status" data-testid="run-status">{status.text}</p>}
       </div>
     </form>

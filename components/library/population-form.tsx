@@ -12,6 +12,7 @@ import { SHELL_MODELS, type ShellModel } from "@/lib/populations/spec";
 import { LAB_UNITS } from "@/lib/units/lab";
 import { applyServerErrors } from "./save-result";
 import { VersionMetaFields, type EditingInfo } from "./version-meta-fields";
+import { useHydrated } from "@/components/forms/use-hydrated";
 
 type ParamErrors = Record<string, { mean?: { message?: string }; cv?: { message?: string } } | undefined>;
 
@@ -55,6 +56,7 @@ function ParamRow({ f, register, errors }: { f: ParamField; register: UseFormReg
 
 /** Create or edit a population in lab units; the same schema checks the values here and on the server. */
 export function PopulationForm({ defaults, editing }: { defaults: FormValues; editing: EditingInfo | null }) {
+  const hydrated = useHydrated();
   const router = useRouter();
   const [status, setStatus] = useState<{ ok: boolean; text: string } | null>(null);
   const { register, handleSubmit, watch, setError, formState: { errors, isSubmitting } } = useForm<FormValues>({ resolver: zodResolver(populationFormSchema), defaultValues: defaults });
@@ -115,7 +117,7 @@ export function PopulationForm({ defaults, editing }: { defaults: FormValues; ed
       ))}
       <VersionMetaFields register={register as never} errors={errors} editing={editing} />
       <div className="flex items-center gap-3">
-        <button className="btn" type="submit" disabled={isSubmitting}>{editing ? "Save" : "Create population"}</button>
+        <button className="btn" type="submit" disabled={!hydrated || isSubmitting}>{editing ? "Save" : "Create population"}</button>
         {status && <p className={`text-sm ${status.ok ? "text-moss-dark" : "text-danger"}`} role="status">{status.text}</p>}
         {!status && Object.keys(errors).length > 0 && <p className="text-sm text-danger" role="status">Some fields need attention; see the messages next to them.</p>}
       </div>

@@ -9,9 +9,11 @@ import { saveStepSchema, type SaveStepValues } from "@/lib/planner-wizard/save-f
 import { errorAt, NumField } from "./num-field";
 import { SaveStatus } from "./save-status";
 import { useAutosave } from "./use-autosave";
+import { useHydrated } from "@/components/forms/use-hydrated";
 
 /** Step 6: title and purpose, new protocol or new version, bench preparation; saves a protocol draft. */
 export function SaveStep({ draftId, initial, protocols, summary }: { draftId: number; initial: SaveStepValues; protocols: { id: number; label: string }[]; summary: string | null }) {
+  const hydrated = useHydrated();
   const [done, setDone] = useState<{ protocolId: number; message: string } | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
   const { register, control, handleSubmit, setError, formState: { errors, isSubmitting } } = useForm<SaveStepValues>({ resolver: zodResolver(saveStepSchema), defaultValues: initial, mode: "onChange" });
@@ -85,7 +87,7 @@ export function SaveStep({ draftId, initial, protocols, summary }: { draftId: nu
       </div>
       <div className="flex flex-wrap items-center gap-4 border-t border-paper-line pt-4">
         <Link href={`/planner/${draftId}/results`} className="btn-quiet">← Back</Link>
-        <button type="submit" className="btn" disabled={isSubmitting || !summary}>{isSubmitting ? "Saving…" : "Save as protocol draft"}</button>
+        <button type="submit" className="btn" disabled={!hydrated || isSubmitting || !summary}>{isSubmitting ? "Saving…" : "Save as protocol draft"}</button>
         <SaveStatus state={state} />
         {formError && <p className="field-error w-full" data-testid="form-error">{formError}</p>}
       </div>

@@ -7,9 +7,11 @@ import { useForm } from "react-hook-form";
 import { saveDraftDetailsAction } from "@/lib/protocols/actions";
 import { draftDetailsSchema, type DraftDetailsInput } from "@/lib/protocols/schemas";
 import { ActionStatus } from "./action-status";
+import { useHydrated } from "@/components/forms/use-hydrated";
 
 /** Edits a draft's bench handling (lab units). A stale page is refused by the server with a conflict message. */
 export function DraftDetailsForm({ defaults, returned }: { defaults: DraftDetailsInput; returned: boolean }) {
+  const hydrated = useHydrated();
   const router = useRouter();
   const [status, setStatus] = useState<{ ok: boolean; text: string } | null>(null);
   const { register, handleSubmit, setError, formState: { errors, isSubmitting } } = useForm<DraftDetailsInput>({
@@ -52,7 +54,7 @@ export function DraftDetailsForm({ defaults, returned }: { defaults: DraftDetail
         {errors.notes && <p className="field-error">{errors.notes.message}</p>}
       </label>
       <div className="flex items-center gap-3">
-        <button className="btn" type="submit" disabled={isSubmitting}>Save draft</button>
+        <button className="btn" type="submit" disabled={!hydrated || isSubmitting}>Save draft</button>
         <ActionStatus status={status} />
       </div>
     </form>

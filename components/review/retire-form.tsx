@@ -4,9 +4,11 @@ import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { retireVersionAction } from "@/lib/protocols/actions";
 import { ActionStatus } from "@/components/protocols/action-status";
+import { useHydrated } from "@/components/forms/use-hydrated";
 
 /** Withdraws an approved version from bench use, with a reason. */
 export function RetireForm({ versionId, lockVersion }: { versionId: number; lockVersion: number }) {
+  const hydrated = useHydrated();
   const router = useRouter();
   const [reason, setReason] = useState("");
   const [status, setStatus] = useState<{ ok: boolean; text: string } | null>(null);
@@ -29,7 +31,7 @@ export function RetireForm({ versionId, lockVersion }: { versionId: number; lock
           <span>Reason for retiring</span>
           <textarea className="input min-h-20" value={reason} onChange={(e) => setReason(e.target.value)} />
         </label>
-        <button type="submit" className="btn-danger" disabled={pending}>Retire version</button>
+        <button type="submit" className="btn-danger" disabled={!hydrated || pending}>Retire version</button>
         <ActionStatus status={status} />
       </form>
     </details>
