@@ -56,6 +56,7 @@ test("developer submits, reviewer returns, developer revises, reviewer signs off
   await dana.reload();
   await expect(dana.getByTestId("version-state")).toHaveText("Returned");
   await expect(dana.getByTestId("comment")).toContainText("wash centrifugation time and speed");
+  await expect(dana.getByRole("button", { name: "Save draft" })).toBeEnabled();
   await dana.getByLabel("Washes").fill("3");
   await dana.getByLabel("Preparation notes").fill("Wash three times in buffer, 2 min at 1000 g each.");
   await snap(dana, "journey2-05-returned-editing");
