@@ -2,7 +2,7 @@ import { getServerSession } from "next-auth";
 import { authOptions } from "@/lib/auth/options";
 import { can, type Capability } from "@/lib/auth/roles";
 import { DomainError, ForbiddenError, InputError, RateLimitedError, TooLargeError, UnauthenticatedError } from "@/lib/errors";
-import { enforceRateLimit, findLiveToken, touchTokenLater } from "@/lib/tokens/auth";
+import { enforceRateLimit, findLiveToken, touchTokenLater } from "@/lib/tokens/service";
 import { findUserById, type User } from "@/lib/users/repo";
 
 /** Largest JSON body the API reads (bytes). */

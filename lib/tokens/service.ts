@@ -77,4 +77,9 @@ export async function enforceRateLimit(tokenId: number, now = Date.now()): Promi
   }
 }
 
+/** Records a token's last use without delaying the response; a failure there is logged, not raised. */
+export function touchTokenLater(tokenId: number): void {
+  repo.touchToken(tokenId).catch((err) => console.error("Could not record token use", err));
+}
+
 export { listTokensOfUser } from "./repo";

@@ -2,7 +2,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { POST as spectra } from "@/app/api/v1/spectra/route";
 import { SPECTRA_EXAMPLE } from "@/lib/api/examples";
 import { RateLimitedError } from "@/lib/errors";
-import { enforceRateLimit } from "@/lib/tokens/auth";
+import { enforceRateLimit } from "@/lib/tokens/service";
 import { createToken } from "@/lib/tokens/service";
 import { findUserById, insertUser } from "@/lib/users/repo";
 import { closeDb, db, freshSchema } from "./support/db";

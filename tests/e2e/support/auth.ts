@@ -1,7 +1,7 @@
 import { expect, type Page } from "@playwright/test";
+import { DEMO_PASSWORD } from "@/db/seeds/01_users";
 
-/** Demo password of the seeded accounts (db/seeds/01_users.ts). */
-export const DEMO_PASSWORD = "sievewright-demo";
+export { DEMO_PASSWORD };
 
 export const DEMO = {
   developer: "dana.dev@example.test",
