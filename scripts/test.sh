@@ -11,8 +11,9 @@ RUN_DIR="$ROOT/.data/test-$$"
 REPORTS="$RUN_DIR/reports"; mkdir -p "$REPORTS"
 export CI="${CI:-}" SIEVEWRIGHT_TEST=1 NEXT_TELEMETRY_DISABLED=1
 export DB_HOST=127.0.0.1 DB_PORT="${TEST_DB_PORT:-3317}" DB_USER=sw_test DB_PASSWORD=sw-test-pass DB_NAME=sw_e2e
-export APP_PORT=3100 NEXTAUTH_URL=http://127.0.0.1:3100 NEXTAUTH_SECRET=test-secret-not-for-production
-export APP_BASE_URL=http://127.0.0.1:3100
+export APP_PORT="${TEST_APP_PORT:-3100}"
+export NEXTAUTH_URL="http://127.0.0.1:$APP_PORT" NEXTAUTH_SECRET=test-secret-not-for-production
+export APP_BASE_URL="http://127.0.0.1:$APP_PORT"
 export SMTP_HOST=127.0.0.1 SMTP_PORT="${TEST_SMTP_PORT:-2626}" SMTP_FROM="Sievewright <no-reply@sievewright.test>"
 export MAIL_SINK_DIR="$RUN_DIR/mail" OUTBOX_POLL_MS=300 UPLOAD_DIR="$RUN_DIR/uploads" RATE_LIMIT_PER_MINUTE=100000
 
@@ -32,6 +33,10 @@ db_sql "$RUN_DIR" "CREATE DATABASE IF NOT EXISTS sw_it CHARACTER SET utf8mb4 COL
 GRANT ALL PRIVILEGES ON sw_it.* TO '$DB_USER'@'127.0.0.1'; FLUSH PRIVILEGES;"
 
 PASSED=0; FAILED=0; FAILED_STEPS=()
+# TEST_TIERS (default: all) picks tiers for a quicker local run, e.g. TEST_TIERS=unit,integration;
+# VITEST_FILTER / E2E_GREP narrow the runners. CI always runs everything.
+TEST_TIERS="${TEST_TIERS:-static,unit,integration,e2e}"
+tier() { [[ ",$TEST_TIERS," == *",$1,"* ]]; }
 step_result() { # NAME EXIT_CODE — a step that is not a test runner counts as one check
   if [ "$2" = "0" ]; then PASSED=$((PASSED+1)); say "✔ $1"; else FAILED=$((FAILED+1)); FAILED_STEPS+=("$1"); say "✘ $1"; fi
 }
@@ -45,17 +50,24 @@ count_json() { # NAME JSONFILE EXIT_CODE — adds a runner's counts from its JSO
   say "$1: $p passed, $f failed"
 }
 
+if tier static; then
 say "Typecheck"; npx tsc --noEmit; step_result "typecheck" $?
 say "Lint"; npx eslint . --max-warnings=0; step_result "lint" $?
+fi
 
+if tier unit; then
 say "Unit and reference tests"
-npx vitest run --project unit --reporter=default --reporter=json --outputFile.json="$REPORTS/unit.json"
+npx vitest run --project unit ${VITEST_FILTER:-} --reporter=default --reporter=json --outputFile.json="$REPORTS/unit.json"
 count_json "unit+reference" "$REPORTS/unit.json" $?
+fi
 
+if tier integration; then
 say "Integration tests (MariaDB on 127.0.0.1:$DB_PORT)"
-DB_NAME=sw_it npx vitest run --project integration --reporter=default --reporter=json --outputFile.json="$REPORTS/integration.json"
+DB_NAME=sw_it npx vitest run --project integration ${VITEST_FILTER:-} --reporter=default --reporter=json --outputFile.json="$REPORTS/integration.json"
 count_json "integration" "$REPORTS/integration.json" $?
+fi
 
+if tier e2e; then
 say "Migrate and seed the end-to-end database"
 node --import tsx scripts/migrate.ts && node --import tsx scripts/seed.ts; step_result "migrate+seed" $?
 
@@ -67,8 +79,9 @@ node --import tsx scripts/mail-sink.ts & PIDS+=("$!")
 node --import tsx scripts/outbox-worker.ts & PIDS+=("$!")
 
 say "End-to-end tests (Playwright, Debian Chromium)"
-PLAYWRIGHT_JSON_OUTPUT_NAME="$REPORTS/e2e.json" npx playwright test --reporter=list,json
+PLAYWRIGHT_JSON_OUTPUT_NAME="$REPORTS/e2e.json" npx playwright test ${E2E_GREP:+--grep "$E2E_GREP"} --reporter=list,json
 count_json "end-to-end" "$REPORTS/e2e.json" $?
+fi
 
 [ ${#FAILED_STEPS[@]} -gt 0 ] && say "Failed: ${FAILED_STEPS[*]}"
 echo "$PASSED passed, $FAILED failed"
