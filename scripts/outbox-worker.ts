@@ -1,5 +1,5 @@
 import { db } from "../db/knex";
-import { deliverDueMail } from "../lib/mail/outbox";
+import { deliverDueMail } from "../lib/mail/sender";
 import { smtpTransport } from "../lib/mail/transport";
 
 /** The outbox sender: its own process, polling mail_outbox every OUTBOX_POLL_MS and delivering over SMTP. */

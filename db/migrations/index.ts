@@ -5,6 +5,7 @@ import * as m003 from "./20261201_003_protocols";
 import * as m004 from "./20261201_004_libraries";
 import * as m005 from "./20261201_005_bench_runs";
 import * as m006 from "./20261201_006_wizard_drafts";
+import * as m500 from "./20261202_500_outbox_claims";
 
 /**
  * Every migration, in order. Adding one: create `db/migrations/<date>_<nnn>_<name>.ts` exporting `up` and `down`,
@@ -17,6 +18,7 @@ const MIGRATIONS: [string, Knex.Migration][] = [
   ["20261201_004_libraries", m004],
   ["20261201_005_bench_runs", m005],
   ["20261201_006_wizard_drafts", m006],
+  ["20261202_500_outbox_claims", m500],
 ];
 
 /** Knex migration source backed by the list above. */

@@ -1,8 +1,6 @@
 import type { Knex } from "knex";
-import type { Transporter } from "nodemailer";
 import { db } from "@/db/knex";
 import { renderMail } from "./render";
-import { mailFrom } from "./transport";
 
 /** One message to queue. `dedupeKey` makes a second enqueue of the same notification a no-op. */
 export interface OutgoingMail {
@@ -30,61 +28,6 @@ export async function enqueueMail(trx: Knex | Knex.Transaction, mail: OutgoingMa
     })
     .onConflict("dedupe_key")
     .ignore();
-}
-
-/** Delay before the next attempt after `attempts` failures: 2^n × base, capped at 10 minutes. */
-export function backoffMs(attempts: number, baseMs = Number(process.env.OUTBOX_BACKOFF_BASE_MS ?? 5_000)): number {
-  return Math.min(baseMs * 2 ** Math.max(0, attempts - 1), 10 * 60_000);
-}
-
-/**
- * Sends the due messages once: rows are claimed with SELECT … FOR UPDATE SKIP LOCKED so several senders never
- * deliver the same row; a failure schedules a retry with backoff and loses nothing.
- * @example const { sent, failed } = await deliverDueMail(smtpTransport());
- */
-export async function deliverDueMail(transport: Transporter, batch = 20): Promise<{ sent: number; failed: number }> {
-  let sent = 0;
-  let failed = 0;
-  await db.transaction(async (trx) => {
-    const rows = await trx("mail_outbox")
-      .where({ status: "pending" })
-      .andWhere("next_attempt_at", "<=", trx.fn.now(3))
-      .orderBy("id")
-      .limit(batch)
-      .forUpdate()
-      .skipLocked();
-    for (const row of rows) {
-      try {
-        const info = await transport.sendMail({
-          from: mailFrom(),
-          to: row.to_address,
-          subject: row.subject,
-          text: row.body_text,
-          html: row.body_html,
-          headers: { "X-Sievewright-Outbox-Id": String(row.id) },
-        });
-        await trx("mail_outbox").where({ id: row.id }).update({
-          status: "sent",
-          attempts: row.attempts + 1,
-          sent_at: trx.fn.now(3),
-          message_id: info.messageId ?? null,
-          last_error: null,
-        });
-        sent++;
-      } catch (err) {
-        const attempts = row.attempts + 1;
-        await trx("mail_outbox")
-          .where({ id: row.id })
-          .update({
-            attempts,
-            last_error: String((err as Error).message ?? err).slice(0, 2000),
-            next_attempt_at: new Date(Date.now() + backoffMs(attempts)),
-          });
-        failed++;
-      }
-    }
-  });
-  return { sent, failed };
 }
 
 /** A queued or sent message, for the mail page and tests. */

@@ -4,7 +4,7 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ConflictError, ForbiddenError, InputError, NotFoundError } from "@/lib/errors";
 import { listAuditEvents } from "@/lib/audit/repo";
-import { deliverDueMail } from "@/lib/mail/outbox";
+import { deliverDueMail } from "@/lib/mail/sender";
 import { readCapturedMail, startMailSink } from "@/lib/mail/sink";
 import { smtpTransport } from "@/lib/mail/transport";
 import { subjectOf } from "@/lib/format/mime";
