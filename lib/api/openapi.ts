@@ -4,7 +4,7 @@
  */
 import { z } from "zod";
 import { ENGINE_VERSION } from "@/lib/dielectric";
-import { MAX_JSON_BYTES } from "@/lib/http/api";
+import { MAX_JSON_BYTES } from "@/lib/http/body";
 import { ENGINE_VERSION_HEADER } from "./respond";
 import { ROUTE_DOCS, type JsonSchema, type RouteDoc } from "./routes";
 

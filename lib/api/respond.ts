@@ -3,7 +3,7 @@
  * splits the server's time into reading the body, computing, serialising and the whole request.
  */
 import { ENGINE_VERSION } from "@/lib/dielectric";
-import { readJson } from "@/lib/http/api";
+import { readJson } from "@/lib/http/body";
 
 /** Header carrying the engine version that produced a result (also in the OpenAPI document). */
 export const ENGINE_VERSION_HEADER = "x-engine-version";

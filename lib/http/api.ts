@@ -1,12 +1,9 @@
 import { getServerSession } from "next-auth";
 import { authOptions } from "@/lib/auth/options";
 import { can, type Capability } from "@/lib/auth/roles";
-import { DomainError, ForbiddenError, InputError, RateLimitedError, TooLargeError, UnauthenticatedError } from "@/lib/errors";
+import { DomainError, ForbiddenError, InputError, RateLimitedError, UnauthenticatedError } from "@/lib/errors";
 import { enforceRateLimit, findLiveToken, touchTokenLater } from "@/lib/tokens/service";
 import { findUserById, type User } from "@/lib/users/repo";
-
-/** Largest JSON body the API reads (bytes). */
-export const MAX_JSON_BYTES = 2 * 1024 * 1024;
 
 /** Who called: the user, and the token when the call came with one. */
 export interface ApiCaller {
@@ -41,23 +38,6 @@ export async function authenticate(req: Request, capability: Capability): Promis
     throw new ForbiddenError(`Your role (${caller.user.role}) may not use this endpoint.`);
   }
   return caller;
-}
-
-/**
- * Reads a JSON body with a size cap; bad JSON → InputError, too large → TooLargeError.
- * @example const body = await readJson(req);
- */
-export async function readJson(req: Request, maxBytes = MAX_JSON_BYTES): Promise<unknown> {
-  const declared = Number(req.headers.get("content-length") ?? 0);
-  if (declared > maxBytes) throw new TooLargeError(`Request body is ${declared} bytes; the limit is ${maxBytes} bytes.`);
-  const text = await req.text();
-  if (text.length > maxBytes) throw new TooLargeError(`Request body is over the ${maxBytes}-byte limit.`);
-  if (!text.trim()) throw new InputError([{ path: "", message: "The request body is empty; send a JSON object." }]);
-  try {
-    return JSON.parse(text);
-  } catch (err) {
-    throw new InputError([{ path: "", message: `The body is not valid JSON: ${(err as Error).message}` }]);
-  }
 }
 
 /**

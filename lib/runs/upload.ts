@@ -1,21 +1,15 @@
-import { InputError, TooLargeError } from "@/lib/errors";
+import { InputError } from "@/lib/errors";
+import { describeBytes, readCappedFormData } from "@/lib/http/body";
 import { MAX_ATTACHMENTS, maxUploadBytes, type UploadFile } from "./attachments";
 
 /**
  * Reads a multipart run submission: the field "run" (JSON of the run-record form) and the files "attachments".
- * The whole body is capped at MAX_ATTACHMENTS × UPLOAD_MAX_MB + 1 MB before it is read.
+ * The whole body is capped at MAX_ATTACHMENTS × UPLOAD_MAX_MB + 1 MB while it streams in (lib/http/body.ts).
  * @example const { run, files } = await readRunSubmission(req);
  */
 export async function readRunSubmission(req: Request): Promise<{ run: unknown; files: UploadFile[] }> {
   const cap = MAX_ATTACHMENTS * maxUploadBytes() + 1024 * 1024;
-  const declared = Number(req.headers.get("content-length") ?? 0);
-  if (declared > cap) throw new TooLargeError(`The upload is ${Math.round(declared / 1024 / 1024)} MB; at most ${MAX_ATTACHMENTS} files of ${Math.round(maxUploadBytes() / 1024 / 1024)} MB each are accepted.`);
-  let form: FormData;
-  try {
-    form = await req.formData();
-  } catch {
-    throw new InputError([{ path: "", message: "Send the run as multipart/form-data with a 'run' field (JSON) and optional 'attachments' files." }]);
-  }
+  const form = await readCappedFormData(req, cap, `run upload (at most ${MAX_ATTACHMENTS} files of ${describeBytes(maxUploadBytes())} each)`);
   const rawRun = form.get("run");
   if (typeof rawRun !== "string") throw new InputError([{ path: "run", message: "The 'run' field (JSON of the run record) is missing." }]);
   let run: unknown;

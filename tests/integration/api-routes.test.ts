@@ -5,7 +5,7 @@ import { POST as windows } from "@/app/api/v1/windows/route";
 import { POST as windowSensitivity } from "@/app/api/v1/windows/sensitivity/route";
 import { SENSITIVITY_EXAMPLE, WINDOWS_EXAMPLE } from "@/lib/api/examples";
 import { LIMITS } from "@/lib/dielectric";
-import { MAX_JSON_BYTES } from "@/lib/http/api";
+import { MAX_JSON_BYTES } from "@/lib/http/body";
 import { createToken, revokeToken } from "@/lib/tokens/service";
 import { findUserById, insertUser } from "@/lib/users/repo";
 import { closeDb, db, freshSchema } from "./support/db";

@@ -1,4 +1,5 @@
-import { apiRoute, readJson } from "@/lib/http/api";
+import { apiRoute } from "@/lib/http/api";
+import { readJson } from "@/lib/http/body";
 import { NotFoundError } from "@/lib/errors";
 import { saveFittedPopulation } from "@/lib/library/fit-service";
 
