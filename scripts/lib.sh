@@ -101,3 +101,21 @@ load_env() {
     [ -z "${!key+x}" ] && export "$key=$val"
   done < "$1"
 }
+
+# s3_fake_start DATADIR — when S3_ENDPOINT points at loopback, starts the local S3-compatible fake (s3rver) there with
+# its data in DATADIR, waits until it answers, and sets S3_PID (empty when a real store is configured).
+s3_fake_start() {
+  S3_PID=""
+  case "${S3_ENDPOINT:-}" in
+    http://127.0.0.1:*|http://localhost:*) ;;
+    *) say "Object store: ${S3_ENDPOINT:-provider default}, bucket ${S3_BUCKET:-sievewright} (not started here)"; return 0 ;;
+  esac
+  local port="${S3_ENDPOINT#http://*:}"; port="${port%%/*}"
+  port_free "$port" || die "Port $port (local object store) is in use. Stop what uses it (ss -ltnp | grep :$port) or set S3_ENDPOINT in .env."
+  S3_FAKE_DIR="$1" node --import tsx "$ROOT/scripts/s3-fake.ts" & S3_PID=$!
+  local i=0
+  until ! port_free "$port"; do
+    sleep 0.2; i=$((i+1))
+    if ! kill -0 "$S3_PID" 2>/dev/null || [ $i -gt 100 ]; then die "The local object store did not start on 127.0.0.1:$port."; fi
+  done
+}

@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# npm start  — install what is missing, start the local MariaDB and mail sink, migrate, seed, build, serve.
+# npm start  — install what is missing, start the local MariaDB, mail sink and object store, migrate, seed, build, serve.
 # npm run dev — the same with `next dev` (hot reload) instead of build + start.
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
@@ -31,9 +31,13 @@ if [ "${SMTP_HOST:-127.0.0.1}" = "127.0.0.1" ]; then
   node --import tsx scripts/mail-sink.ts & PIDS+=("$!")
 fi
 
+s3_fake_start "$ROOT/.data/s3"; [ -n "$S3_PID" ] && PIDS+=("$S3_PID")
+node --import tsx scripts/storage.ts check || die "File storage is unavailable (S3_ENDPOINT=${S3_ENDPOINT:-default}, bucket ${S3_BUCKET:-sievewright}); check the S3_* settings in .env."
+
 say "Migrating the database"
 node --import tsx scripts/migrate.ts || die "Migrations failed."
 node --import tsx scripts/seed.ts --if-empty || die "Seeding the demo data failed."
+node --import tsx scripts/storage.ts sweep || say "The orphan sweep of the object store failed (see above); continuing."
 
 node --import tsx scripts/outbox-worker.ts & PIDS+=("$!")
 

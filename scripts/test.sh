@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# npm test — every tier against a throwaway MariaDB, ending with one line "N passed, N failed".
+# npm test — every tier against a throwaway MariaDB and object store, ending with one line "N passed, N failed".
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
@@ -16,6 +16,7 @@ export NEXTAUTH_URL="http://127.0.0.1:$APP_PORT" NEXTAUTH_SECRET=test-secret-not
 export APP_BASE_URL="http://127.0.0.1:$APP_PORT"
 export SMTP_HOST=127.0.0.1 SMTP_PORT="${TEST_SMTP_PORT:-2626}" SMTP_FROM="Sievewright <no-reply@sievewright.test>"
 export MAIL_SINK_DIR="$RUN_DIR/mail" OUTBOX_POLL_MS=300 UPLOAD_DIR="$RUN_DIR/uploads" RATE_LIMIT_PER_MINUTE=100000
+export S3_ENDPOINT="http://127.0.0.1:${TEST_S3_PORT:-4500}" S3_REGION=us-east-1 S3_BUCKET=sw-test S3_ACCESS_KEY_ID=S3RVER S3_SECRET_ACCESS_KEY=S3RVER S3_FORCE_PATH_STYLE=true
 
 port_free "$APP_PORT" || die "Port $APP_PORT is in use; the end-to-end tests serve the app there. Stop what uses it (ss -ltnp | grep :$APP_PORT)."
 port_free "$SMTP_PORT" || die "Port $SMTP_PORT is in use; the tests run their SMTP sink there. Stop what uses it or set TEST_SMTP_PORT."
@@ -29,6 +30,7 @@ cleanup() {
 trap cleanup INT TERM EXIT
 
 db_start "$RUN_DIR" "$DB_PORT"; PIDS+=("$DB_PID")
+s3_fake_start "$RUN_DIR/s3"; PIDS+=("$S3_PID")
 db_sql "$RUN_DIR" "CREATE DATABASE IF NOT EXISTS sw_it CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 GRANT ALL PRIVILEGES ON sw_it.* TO '$DB_USER'@'127.0.0.1'; FLUSH PRIVILEGES;"
 

@@ -6,6 +6,7 @@ import * as m004 from "./20261201_004_libraries";
 import * as m005 from "./20261201_005_bench_runs";
 import * as m006 from "./20261201_006_wizard_drafts";
 import * as m500 from "./20261202_500_outbox_claims";
+import * as m600 from "./20261202_600_stored_files";
 
 /**
  * Every migration, in order. Adding one: create `db/migrations/<date>_<nnn>_<name>.ts` exporting `up` and `down`,
@@ -19,6 +20,7 @@ const MIGRATIONS: [string, Knex.Migration][] = [
   ["20261201_005_bench_runs", m005],
   ["20261201_006_wizard_drafts", m006],
   ["20261202_500_outbox_claims", m500],
+  ["20261202_600_stored_files", m600],
 ];
 
 /** Knex migration source backed by the list above. */

@@ -1,7 +1,7 @@
 import { getServerSession } from "next-auth";
 import { authOptions } from "@/lib/auth/options";
 import { can, type Capability } from "@/lib/auth/roles";
-import { DomainError, ForbiddenError, InputError, RateLimitedError, UnauthenticatedError } from "@/lib/errors";
+import { DomainError, ForbiddenError, InputError, UnauthenticatedError } from "@/lib/errors";
 import { enforceRateLimit, findLiveToken, touchTokenLater } from "@/lib/tokens/service";
 import { findUserById, type User } from "@/lib/users/repo";
 
@@ -49,7 +49,8 @@ export function errorResponse(err: unknown): Response {
     const body: Record<string, unknown> = { error: err.code, message: err.message };
     if (err instanceof InputError) body.issues = err.issues;
     const headers: Record<string, string> = {};
-    if (err instanceof RateLimitedError) headers["retry-after"] = String(err.retryAfterSeconds);
+    const retryAfter = (err as { retryAfterSeconds?: number }).retryAfterSeconds;
+    if (retryAfter) headers["retry-after"] = String(retryAfter);
     return Response.json(body, { status: err.status, headers });
   }
   const issues = (err as { issues?: unknown })?.issues;

@@ -1,8 +1,7 @@
 import { createHash } from "node:crypto";
-import { mkdir, rm, writeFile } from "node:fs/promises";
-import path from "node:path";
 import Papa from "papaparse";
 import { InputError, type FieldIssue } from "@/lib/errors";
+import { deleteQuietly, newObjectKey, putObject, type StoredObject } from "@/lib/storage";
 
 /** A file as received from the form or the API: its name and bytes. */
 export interface UploadFile {
@@ -27,14 +26,6 @@ export const MAX_ATTACHMENTS = 5;
 export function maxUploadBytes(): number {
   const mb = Number(process.env.UPLOAD_MAX_MB ?? 10);
   return Math.round((Number.isFinite(mb) && mb > 0 ? mb : 10) * 1024 * 1024);
-}
-
-/**
- * Folder that holds attachment files (UPLOAD_DIR, relative to the app folder when not absolute).
- * @example uploadRoot() // "/srv/sievewright/.data/uploads"
- */
-export function uploadRoot(): string {
-  return path.resolve(process.cwd(), process.env.UPLOAD_DIR ?? ".data/uploads");
 }
 
 const startsWith = (b: Uint8Array, sig: number[]) => sig.every((v, i) => b[i] === v);
@@ -107,36 +98,18 @@ export function checkFiles(files: UploadFile[]): CheckedFile[] {
 }
 
 /**
- * Writes checked files for a run under UPLOAD_DIR/runs/<runId>/ and returns their relative storage paths.
- * @example await writeRunFiles(7, checked) // ["runs/7/1-3f2a9c1b0d4e.png"]
+ * Stores checked files in the object store (keys made by the store module, never from the file names) and returns
+ * what was stored, in order. When one write fails, the ones already written are deleted (or left to the orphan
+ * sweep when the store is down) and the error propagates: StorageUnavailableError → 503, nothing recorded.
+ * @example const stored = await storeRunFiles(checked); stored[0].key // "attachments/2026-12/….png"
  */
-export async function writeRunFiles(runId: number, files: CheckedFile[]): Promise<string[]> {
-  const relDir = path.posix.join("runs", String(runId));
-  await mkdir(path.join(uploadRoot(), relDir), { recursive: true });
-  const paths: string[] = [];
-  for (const [i, f] of files.entries()) {
-    const rel = path.posix.join(relDir, `${i + 1}-${f.sha256.slice(0, 12)}.${f.extension}`);
-    await writeFile(path.join(uploadRoot(), rel), f.bytes, { flag: "wx" });
-    paths.push(rel);
+export async function storeRunFiles(files: CheckedFile[]): Promise<StoredObject[]> {
+  const stored: StoredObject[] = [];
+  try {
+    for (const f of files) stored.push(await putObject(newObjectKey("attachments/", f.extension), f.bytes, f.mimeType));
+  } catch (err) {
+    await deleteQuietly(stored.map((o) => o.key));
+    throw err;
   }
-  return paths;
-}
-
-/**
- * Removes a run's folder of files (after a failed save, so no file outlives a rolled-back row).
- * @example await removeRunFiles(7)
- */
-export async function removeRunFiles(runId: number): Promise<void> {
-  await rm(path.join(uploadRoot(), "runs", String(runId)), { recursive: true, force: true });
-}
-
-/**
- * Absolute path of a stored file, refusing anything that would leave UPLOAD_DIR.
- * @example storedFilePath("runs/7/1-3f2a9c1b0d4e.png")
- */
-export function storedFilePath(relative: string): string {
-  const root = uploadRoot();
-  const full = path.resolve(root, relative);
-  if (!full.startsWith(root + path.sep)) throw new Error(`Refusing a storage path outside UPLOAD_DIR: ${relative}`);
-  return full;
+  return stored;
 }

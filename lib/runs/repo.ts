@@ -5,7 +5,7 @@ import { db } from "@/db/knex";
 
 type Conn = Knex | Knex.Transaction;
 
-/** One attachment as the app sees it (the file itself is on disk under UPLOAD_DIR). */
+/** One attachment as the app sees it (the file itself is in the object store under the key `storagePath`). */
 export interface Attachment {
   id: number;
   runId: number;
@@ -149,4 +149,31 @@ export async function listRunsForVersion(versionId: number, conn: Conn = db): Pr
 export async function findAttachment(id: number, conn: Conn = db): Promise<(Attachment & { versionId: number }) | null> {
   const row = await conn("attachments as a").join("bench_runs as r", "r.id", "a.run_id").where("a.id", id).first("a.*", "r.version_id");
   return row ? { ...toAttachment(row), versionId: num(row.version_id) } : null;
+}
+
+/**
+ * Which of these object keys an attachment row names (for the orphan sweep).
+ * @example await attachmentKeysAmong(["attachments/2026-12/a.png"]) // Set { "attachments/2026-12/a.png" }
+ */
+export async function attachmentKeysAmong(keys: string[], conn: Conn = db): Promise<Set<string>> {
+  if (keys.length === 0) return new Set();
+  const rows: { storage_path: string }[] = await conn("attachments").whereIn("storage_path", keys).select("storage_path");
+  return new Set(rows.map((r) => r.storage_path));
+}
+
+/**
+ * Attachments whose file is still named by a path under the old UPLOAD_DIR folder (not yet an object key).
+ * @example (await legacyAttachments()).length // 0 after `npm run storage:migrate`
+ */
+export async function legacyAttachments(conn: Conn = db): Promise<Attachment[]> {
+  const rows: Row[] = await conn("attachments").whereNot("storage_path", "like", "attachments/%").orderBy("id");
+  return rows.map(toAttachment);
+}
+
+/**
+ * Points an attachment at its object key, only if it still names the old path; returns whether it changed.
+ * @example await moveAttachmentKey(3, "runs/7/1-ab.png", "attachments/2026-12/….png") // true
+ */
+export async function moveAttachmentKey(id: number, oldPath: string, key: string, conn: Conn = db): Promise<boolean> {
+  return (await conn("attachments").where({ id, storage_path: oldPath }).update({ storage_path: key })) === 1;
 }

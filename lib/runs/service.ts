@@ -5,7 +5,8 @@ import { checkConductivity } from "@/lib/bench-sheet/acceptance";
 import { ConflictError, ForbiddenError } from "@/lib/errors";
 import { parseOrThrow } from "@/lib/http/zod-issues";
 import { readVersionById } from "@/lib/protocols/queries";
-import { checkFiles, removeRunFiles, writeRunFiles, type UploadFile } from "./attachments";
+import { deleteQuietly } from "@/lib/storage";
+import { checkFiles, storeRunFiles, type UploadFile } from "./attachments";
 import { insertAttachment, insertRun, listRunsForVersion, type BenchRun, type NewRun } from "./repo";
 import { recordRunSchema, type RecordRun } from "./schemas";
 
@@ -47,7 +48,9 @@ export function toNewRun(input: RecordRun, technicianId: number, buffer: { targe
 
 /**
  * Records a bench run with its attachments for an approved, current version, by a technician. Everything is checked
- * first; the row, the attachment rows, the files and the audit event are saved together or not at all.
+ * first; the files go to the object store, then the row, the attachment rows and the audit event are saved in one
+ * transaction. If that fails the stored objects are deleted again (or swept later), so no record lacks its files and
+ * no file outlives its record; a store that is down gives StorageUnavailableError (503) with nothing saved.
  * @example const run = await recordRun(tomas, { versionId: 12, bufferLot: "B-0412", … }, [{ name: "gate.png", bytes }]);
  */
 export async function recordRun(actor: RunActor, raw: unknown, files: UploadFile[] = []): Promise<BenchRun> {
@@ -58,15 +61,16 @@ export async function recordRun(actor: RunActor, raw: unknown, files: UploadFile
   if (!integrity.ok) throw new ConflictError(`Version ${version.number} of ${protocol.code} does not match what was signed (${integrity.problems[0]}). Do not use it; tell QA.`);
   const checked = checkFiles(files);
   const run = toNewRun(input, actor.id, version.content.buffer);
+  const stored = await storeRunFiles(checked);
   let runId = 0;
+  let recorded = false;
   try {
     await db.transaction(async (trx) => {
       const locked = await trx("protocol_versions").where({ id: version.id }).forUpdate().first("state");
       if (locked?.state !== "approved") throw new ConflictError(`Version ${version.number} of ${protocol.code} stopped being current while you entered the run; nothing was saved.`);
       runId = await insertRun(trx, run);
-      const paths = await writeRunFiles(runId, checked);
       for (const [i, f] of checked.entries()) {
-        await insertAttachment(trx, { runId, fileName: f.name.slice(0, 255), mimeType: f.mimeType, sizeBytes: f.bytes.length, sha256: f.sha256, storagePath: paths[i] });
+        await insertAttachment(trx, { runId, fileName: f.name.slice(0, 255), mimeType: f.mimeType, sizeBytes: f.bytes.length, sha256: f.sha256, storagePath: stored[i].key });
       }
       await recordAudit(trx, {
         actor,
@@ -77,9 +81,9 @@ export async function recordRun(actor: RunActor, raw: unknown, files: UploadFile
         after: { versionId: version.id, conductivity25: run.conductivity25, accepted: run.conductivityAccepted, attachments: checked.map((f) => f.sha256) },
       });
     });
-  } catch (err) {
-    if (runId) await removeRunFiles(runId);
-    throw err;
+    recorded = true;
+  } finally {
+    if (!recorded) await deleteQuietly(stored.map((o) => o.key));
   }
   const runs = await listRunsForVersion(version.id);
   return runs.find((r) => r.id === runId)!;

@@ -1,6 +1,3 @@
-import { mkdtemp } from "node:fs/promises";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as postRun } from "@/app/api/v1/runs/route";
 import { GET as getAttachment } from "@/app/api/v1/runs/attachments/[attachmentId]/route";
@@ -30,7 +27,6 @@ describe("POST /api/v1/runs and GET /api/v1/runs/attachments/{id}", () => {
 
   beforeAll(async () => {
     await freshSchema();
-    process.env.UPLOAD_DIR = await mkdtemp(path.join(tmpdir(), "sw-run-routes-"));
     approved = await insertBenchVersion(db, { code: "QH-LYM-01", state: "approved" });
     tech = await tokenFor("tech.routes@example.test", "technician");
     dev = await tokenFor("dev.routes@example.test", "developer");

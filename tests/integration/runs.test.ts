@@ -1,12 +1,10 @@
-import { mkdtemp, readFile, readdir } from "node:fs/promises";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { createHash } from "node:crypto";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { ForbiddenError, InputError, NotFoundError } from "@/lib/errors";
 import { listAuditEvents } from "@/lib/audit/repo";
 import { recordRun, type RunActor } from "@/lib/runs/service";
 import { listRunsForVersion } from "@/lib/runs/repo";
+import { isObjectKey, listObjects, readObject } from "@/lib/storage";
 import { insertBenchVersion, type InsertedVersion } from "@/tests/support/bench-fixture";
 import { closeDb, db, freshSchema } from "./support/db";
 
@@ -14,12 +12,10 @@ const PNG = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, ...n
 const CSV = new TextEncoder().encode("event,gate,count\n1,live,812\n2,dead,41\n");
 const ZIP = new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0x14, 0x00, 0x00, 0x00, 0x08, 0x00, 0xff, 0xfe]);
 
-async function filesOnDisk(root: string): Promise<string[]> {
-  try {
-    return (await readdir(root, { recursive: true, withFileTypes: true })).filter((e) => e.isFile()).map((e) => path.join(e.parentPath, e.name));
-  } catch {
-    return [];
-  }
+async function storedKeys(): Promise<string[]> {
+  const keys: string[] = [];
+  for await (const o of listObjects("attachments/")) keys.push(o.key);
+  return keys.sort();
 }
 
 async function counts(): Promise<{ runs: number; attachments: number }> {
@@ -33,14 +29,11 @@ describe("bench run records and attachments", () => {
   let draft: InsertedVersion;
   let tech: RunActor;
   let dev: RunActor;
-  let uploads: string;
   // Demo run: 101 µS/cm read at 22 °C compensates to 0.0101 / 0.94 = 0.01074 S/m, inside 0.009–0.011 (hand, 2 %/K common practice)
   const good = { bufferLot: "B-0412", conductivityUsPerCm: "101", measuredAtC: "22", operatingTemperatureC: "22", frequencyKHz: "350", voltageVpp: "14.1", flowRateUlPerMin: "2.5", recoveryPercent: "88", purityPercent: "93.5", countingMethod: "haemocytometer, trypan blue" };
 
   beforeAll(async () => {
     await freshSchema();
-    uploads = await mkdtemp(path.join(tmpdir(), "sw-runs-"));
-    process.env.UPLOAD_DIR = uploads;
     approved = await insertBenchVersion(db, { code: "QH-LYM-01", state: "approved" });
     draft = await insertBenchVersion(db, { code: "QH-LYM-01", state: "draft" });
     const [tid] = await db("users").insert({ email: "tomas.tech@example.test", name: "Tomas Technician", role: "technician", password_hash: "x" });
@@ -53,7 +46,7 @@ describe("bench run records and attachments", () => {
   });
   afterAll(closeDb);
 
-  it("records a run in SI units with the acceptance check, stores files on disk with their hash, and audits it", async () => {
+  it("records a run in SI units with the acceptance check, stores files in the object store with their hash, and audits it", async () => {
     const run = await recordRun(tech, { ...good, versionId: approved.versionId }, [
       { name: "gate.png", bytes: PNG },
       { name: "counts.csv", bytes: CSV },
@@ -69,8 +62,13 @@ describe("bench run records and attachments", () => {
       ["gate.png", "image/png", PNG.length],
       ["counts.csv", "text/csv", CSV.length],
     ]);
-    const stored = await readFile(path.join(uploads, run.attachments[0].storagePath));
-    expect(createHash("sha256").update(stored).digest("hex")).toBe(run.attachments[0].sha256);
+    for (const a of run.attachments) {
+      expect(isObjectKey(a.storagePath)).toBe(true); // a generated key: the user's file name is not in it
+      expect(a.storagePath).not.toContain(a.fileName.split(".")[0]);
+      const stored = await readObject(a.storagePath, a.sha256);
+      expect(createHash("sha256").update(stored.bytes).digest("hex")).toBe(a.sha256);
+      expect(stored.contentType).toBe(a.mimeType);
+    }
     const [event] = await listAuditEvents({ entityType: "bench_run", entityId: String(run.id) });
     expect(event.action).toBe("run.record");
   });
@@ -95,12 +93,12 @@ describe("bench run records and attachments", () => {
   ];
   it.each(refusals)("refuses a file that is %s with a clear message and stores nothing", async (_what, files, message) => {
     const before = await counts();
-    const diskBefore = await filesOnDisk(uploads);
+    const storeBefore = await storedKeys();
     const attempt = recordRun(tech, { ...good, versionId: approved.versionId }, [{ name: "fine.png", bytes: PNG }, ...files()]);
     await expect(attempt).rejects.toBeInstanceOf(InputError);
     await expect(attempt).rejects.toMatchObject({ issues: [{ path: "attachments", message: expect.stringMatching(message) }] });
     expect(await counts()).toEqual(before);
-    expect(await filesOnDisk(uploads)).toEqual(diskBefore);
+    expect(await storedKeys()).toEqual(storeBefore);
   });
 
   it("names the field, the value and the allowed range with its unit for bad numbers", async () => {

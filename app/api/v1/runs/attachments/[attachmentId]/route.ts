@@ -1,7 +1,6 @@
-import { readFile } from "node:fs/promises";
 import { apiRoute } from "@/lib/http/api";
 import { NotFoundError } from "@/lib/errors";
-import { storedFilePath } from "@/lib/runs/attachments";
+import { readObject } from "@/lib/storage";
 import { findAttachment } from "@/lib/runs/repo";
 import { readVersionById } from "@/lib/protocols/queries";
 
@@ -9,15 +8,15 @@ export const runtime = "nodejs";
 
 type Ctx = { params: Promise<{ attachmentId: string }> };
 
-/** GET /api/v1/runs/attachments/{id}: the stored file, for anyone who may see the run's version. */
+/** GET /api/v1/runs/attachments/{id}: the stored file (SHA-256 checked), for anyone who may see the run's version. */
 export const GET = apiRoute("run.read", async (_req, caller, ctx: Ctx) => {
   const id = Number((await ctx.params).attachmentId);
   const attachment = Number.isInteger(id) ? await findAttachment(id) : null;
   if (!attachment) throw new NotFoundError(`No attachment ${id}.`);
   await readVersionById(caller.user, attachment.versionId);
-  const bytes = await readFile(storedFilePath(attachment.storagePath));
+  const { bytes } = await readObject(attachment.storagePath, attachment.sha256);
   const ascii = attachment.fileName.replace(/[^\x20-\x7e]|["\\]/g, "_");
-  return new Response(new Uint8Array(bytes), {
+  return new Response(bytes as Uint8Array<ArrayBuffer>, {
     headers: {
       "content-type": attachment.mimeType,
       "content-disposition": `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(attachment.fileName)}`,
