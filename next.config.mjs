@@ -1,6 +1,6 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
-  serverExternalPackages: ["knex", "mysql2", "pdfkit", "bcryptjs", "nodemailer", "smtp-server"],
+  serverExternalPackages: ["knex", "mysql2", "pdfkit", "bcryptjs", "nodemailer", "smtp-server", "piscina", "@aws-sdk/client-s3"],
   poweredByHeader: false,
   experimental: { authInterrupts: true },
   // Only for local sandboxes while others' work is in progress; npm test always typechecks (tsc and build).

@@ -41,6 +41,7 @@ node --import tsx scripts/storage.ts sweep || say "The orphan sweep of the objec
 
 node --import tsx scripts/outbox-worker.ts & PIDS+=("$!")
 
+node scripts/build-workers.mjs || die "Building the worker threads (bench-sheet PDFs) failed."
 if [ "$MODE" = "dev" ]; then
   node node_modules/next/dist/bin/next dev -p "$APP_PORT" -H 127.0.0.1 & PIDS+=("$!")
 else

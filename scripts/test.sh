@@ -34,6 +34,8 @@ s3_fake_start "$RUN_DIR/s3"; PIDS+=("$S3_PID")
 db_sql "$RUN_DIR" "CREATE DATABASE IF NOT EXISTS sw_it CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 GRANT ALL PRIVILEGES ON sw_it.* TO '$DB_USER'@'127.0.0.1'; FLUSH PRIVILEGES;"
 
+node scripts/build-workers.mjs || die "Building the worker threads (bench-sheet PDFs) failed."
+
 PASSED=0; FAILED=0; FAILED_STEPS=()
 # TEST_TIERS (default: all) picks tiers for a quicker local run, e.g. TEST_TIERS=unit,integration;
 # VITEST_FILTER / E2E_GREP narrow the runners. CI always runs everything.

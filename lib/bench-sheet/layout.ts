@@ -58,7 +58,9 @@ function statusSection(source: BenchSheetSource, options: BenchSheetOptions, rea
     rows: [
       { label: "State", value: ready ? `${state}, current: signed for bench use` : state },
       { label: "Signatures", value: signatures.length === 0 ? "none" : signatures.map((s) => `${s.signerName}, ${s.meaning}, ${utcText(s.signedAt)}`).join("; ") },
-      { label: "Printed", value: `${utcText(options.printedAt)}${options.printedBy ? ` by ${options.printedBy}` : ""}, buffer volume ${options.volumeMl} mL` },
+      options.issued
+        ? { label: "Issued", value: `stored copy of the version approved ${utcText(options.printedAt)} (every download is this same file), buffer volume ${options.volumeMl} mL` }
+        : { label: "Printed", value: `${utcText(options.printedAt)}${options.printedBy ? ` by ${options.printedBy}` : ""}, buffer volume ${options.volumeMl} mL` },
     ],
   });
   return blocks;

@@ -40,6 +40,8 @@ export interface BenchSheetOptions {
   paper: PaperSize;
   printedAt: Date;
   printedBy?: string;
+  /** The stored copy of a signed version: `printedAt` is the approval time and no printer is named. */
+  issued?: boolean;
 }
 
 /** A piece of a section, in reading order. */

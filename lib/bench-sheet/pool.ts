@@ -1,0 +1,61 @@
+import { existsSync } from "node:fs";
+import path from "node:path";
+import { pathToFileURL } from "node:url";
+import Piscina from "piscina";
+import { DomainError } from "@/lib/errors";
+import type { BenchSheetLayout } from "./types";
+
+/** Too many sheets are waiting to be drawn. Maps to 503 with Retry-After. */
+export class RendererBusyError extends DomainError {
+  readonly status = 503;
+  readonly code = "renderer_busy";
+  readonly retryAfterSeconds = 5;
+  constructor() {
+    super("Too many bench sheets are being prepared right now; try again in a few seconds.");
+  }
+}
+
+/** Sheets allowed to wait for a thread before new ones are refused with 503. */
+export const MAX_QUEUED_SHEETS = 64;
+
+const holder = globalThis as unknown as { sievewrightSheetPool?: Piscina };
+
+/**
+ * Where the bundled worker entry lives (built by `node scripts/build-workers.mjs`, part of `npm run build`).
+ * @example workerBundlePath() // "/srv/sievewright/build/workers/bench-sheet.mjs"
+ */
+export function workerBundlePath(root = process.cwd()): string {
+  return path.join(root, "build", "workers", "bench-sheet.mjs");
+}
+
+/**
+ * Threads for drawing PDFs: PDF_WORKERS, default 1 (on a small machine one core stays free for requests).
+ * @example pdfWorkerCount() // 1
+ */
+export function pdfWorkerCount(): number {
+  const n = Number(process.env.PDF_WORKERS ?? 1);
+  return Number.isInteger(n) && n >= 1 && n <= 16 ? n : 1;
+}
+
+function pool(): Piscina {
+  if (holder.sievewrightSheetPool) return holder.sievewrightSheetPool;
+  const file = workerBundlePath();
+  if (!existsSync(file)) throw new Error(`The bench-sheet worker is not built (${file} is missing): run \`node scripts/build-workers.mjs\` (part of npm run build).`);
+  const threads = pdfWorkerCount();
+  holder.sievewrightSheetPool = new Piscina({ filename: pathToFileURL(file).href, minThreads: 0, maxThreads: threads, maxQueue: MAX_QUEUED_SHEETS, idleTimeout: 60_000 });
+  return holder.sievewrightSheetPool;
+}
+
+/**
+ * Draws a sheet on a worker thread, so the event loop keeps answering other requests meanwhile.
+ * Throws RendererBusyError (503) when MAX_QUEUED_SHEETS are already waiting.
+ * @example const pdf = await renderInWorker(buildBenchSheet(source, options)); // Uint8Array "%PDF-…"
+ */
+export async function renderInWorker(layout: BenchSheetLayout): Promise<Uint8Array> {
+  try {
+    return new Uint8Array(await pool().run(layout));
+  } catch (err) {
+    if (err instanceof Error && /queue is at limit/i.test(err.message)) throw new RendererBusyError();
+    throw err;
+  }
+}
