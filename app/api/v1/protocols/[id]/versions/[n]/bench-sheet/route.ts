@@ -1,4 +1,5 @@
 import { apiRoute } from "@/lib/http/api";
+import { ServerTiming } from "@/lib/http/timing";
 import { parseOrThrow } from "@/lib/http/zod-issues";
 import { NotFoundError } from "@/lib/errors";
 import { benchSheetQuerySchema, sheetFileName } from "@/lib/bench-sheet/schemas";
@@ -22,17 +23,18 @@ function knownTag(req: Request): string | null {
  * served with ETag "<sha256>" (If-None-Match → 304); other versions are drawn on demand and not cached.
  */
 export const GET = apiRoute("protocol.readApproved", async (req, caller, ctx: Ctx) => {
+  const timing = new ServerTiming();
   const { id, n } = await ctx.params;
   const protocolId = Number(id);
   const number = Number(n);
   if (!Number.isInteger(protocolId) || !Number.isInteger(number)) throw new NotFoundError(`No version ${n} of protocol ${id}.`);
   const query = parseOrThrow(benchSheetQuerySchema, Object.fromEntries(new URL(req.url).searchParams));
-  const source = await loadSheetSourceByNumber(caller.user, protocolId, number);
+  const source = await timing.step("db", () => loadSheetSourceByNumber(caller.user, protocolId, number));
   const known = knownTag(req);
-  const file = await benchSheetFile(source, { paper: query.paper, volumeMl: query.volumeMl, printedBy: caller.user.name, knownSha256: known });
+  const file = await timing.step("sheet", () => benchSheetFile(source, { paper: query.paper, volumeMl: query.volumeMl, printedBy: caller.user.name, knownSha256: known }));
   const headers: Record<string, string> = file.sha256
-    ? { etag: `"${file.sha256}"`, "cache-control": "private, no-cache" }
-    : { "cache-control": "no-store" };
+    ? { etag: `"${file.sha256}"`, "cache-control": "private, no-cache", "server-timing": timing.header() }
+    : { "cache-control": "no-store", "server-timing": timing.header() };
   if (file.sha256 && !file.bytes) return new Response(null, { status: 304, headers });
   return new Response(file.bytes as Uint8Array<ArrayBuffer>, {
     headers: {

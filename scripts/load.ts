@@ -1,0 +1,180 @@
+/**
+ * `npm run load`: loopback load test of a running app (npm start) with autocannon, 16 connections for 30 s per
+ * scenario: sign-in, sweeps (JSON, and Arrow when the build offers it), the protocol list, a version page, a stored
+ * bench sheet, and a cheap request alone and while bench-sheet PDFs are being drawn. Prints p50/p95/p99 and errors,
+ * and writes bench/load-results.md. Needs the app's database env (it makes a throwaway API token); start the app with
+ * a high RATE_LIMIT_PER_MINUTE, or the per-token limiter answers 429 and those count as errors.
+ * LOAD_SECONDS and LOAD_CONNECTIONS override the defaults; LOAD_ONLY=name,name picks scenarios.
+ */
+import { execSync } from "node:child_process";
+import { mkdirSync, writeFileSync } from "node:fs";
+import { createRequire } from "node:module";
+import os from "node:os";
+import { db } from "../db/knex";
+import { DEMO_PASSWORD } from "../db/seeds/01_users";
+import { buildParticle, PARTICLE_PRESETS } from "../lib/dielectric";
+import { createToken, revokeToken } from "../lib/tokens/service";
+import { findUserById } from "../lib/users/repo";
+import { loadDotEnv } from "./env-file";
+
+interface AutocannonRun extends PromiseLike<{ errors: number; timeouts: number }> {
+  on(event: "response", listener: (client: unknown, status: number, bytes: number, ms: number) => void): void;
+}
+type Autocannon = (opts: Record<string, unknown>) => AutocannonRun;
+const autocannon = createRequire(import.meta.url)("autocannon") as Autocannon;
+
+loadDotEnv();
+const BASE = (process.env.LOAD_BASE_URL ?? process.env.APP_BASE_URL ?? `http://127.0.0.1:${process.env.APP_PORT ?? 3000}`).replace(/\/$/, "");
+const CONNECTIONS = Number(process.env.LOAD_CONNECTIONS ?? 16);
+const SECONDS = Number(process.env.LOAD_SECONDS ?? 30);
+const ONLY = (process.env.LOAD_ONLY ?? "").split(",").filter(Boolean);
+const USER = process.env.LOAD_USER_EMAIL ?? "dana.dev@example.test";
+const ARROW = "application/vnd.apache.arrow.stream";
+
+/** One scenario's figures: latencies at the client in ms, responses per second, and errors (incl. non-2xx/304). */
+interface Figures {
+  name: string;
+  what: string;
+  responses: number;
+  rps: number;
+  p50: number;
+  p95: number;
+  p99: number;
+  errors: number;
+  statuses: Record<number, number>;
+  target?: string;
+}
+
+/** Nearest-rank percentile of sorted values. @example percentile([1, 2, 3, 4], 50) // 2 */
+function percentile(sorted: number[], p: number): number {
+  if (sorted.length === 0) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))];
+}
+
+async function hammer(name: string, what: string, opts: Record<string, unknown>, connections = CONNECTIONS): Promise<Figures> {
+  const latencies: number[] = [];
+  const statuses: Record<number, number> = {};
+  const run = autocannon({ connections, duration: SECONDS, timeout: 20, ...opts });
+  run.on("response", (_c, status, _b, ms) => {
+    latencies.push(ms);
+    statuses[status] = (statuses[status] ?? 0) + 1;
+  });
+  const result = await run;
+  latencies.sort((a, b) => a - b);
+  const bad = Object.entries(statuses).filter(([s]) => !(Number(s) >= 200 && Number(s) < 400)).reduce((n, [, c]) => n + c, 0);
+  const f: Figures = { name, what, responses: latencies.length, rps: latencies.length / SECONDS, p50: percentile(latencies, 50), p95: percentile(latencies, 95), p99: percentile(latencies, 99), errors: result.errors + result.timeouts + bad, statuses };
+  console.log(`${name.padEnd(28)} ${String(f.responses).padStart(6)} resp  ${f.rps.toFixed(1).padStart(6)}/s  p50 ${f.p50.toFixed(0).padStart(5)} ms  p95 ${f.p95.toFixed(0).padStart(5)} ms  p99 ${f.p99.toFixed(0).padStart(5)} ms  errors ${f.errors}  ${JSON.stringify(statuses)}`);
+  return f;
+}
+
+function cookiesOf(res: Response): string[] {
+  return res.headers.getSetCookie().map((c) => c.split(";")[0]);
+}
+
+async function signInCookie(): Promise<{ cookie: string; csrfCookie: string; csrfToken: string }> {
+  const csrf = await fetch(`${BASE}/api/auth/csrf`);
+  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
+  const csrfCookie = cookiesOf(csrf).join("; ");
+  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
+    method: "POST",
+    redirect: "manual",
+    headers: { "content-type": "application/x-www-form-urlencoded", cookie: csrfCookie },
+    body: new URLSearchParams({ csrfToken, email: USER, password: DEMO_PASSWORD, json: "true" }),
+  });
+  const session = cookiesOf(res).find((c) => c.includes("session-token"));
+  if (!session) throw new Error(`Sign-in as ${USER} gave no session cookie (status ${res.status}); is the demo seeded?`);
+  return { cookie: `${csrfCookie}; ${session}`, csrfCookie, csrfToken };
+}
+
+function commit(): string {
+  try {
+    return execSync("git rev-parse --short HEAD", { encoding: "utf8" }).trim();
+  } catch {
+    return "unknown";
+  }
+}
+
+async function main(): Promise<void> {
+  const want = (n: string) => ONLY.length === 0 || ONLY.includes(n);
+  const loadBefore = os.loadavg()[0];
+  const row = await db("users").where({ email: USER, active: true }).first("id");
+  if (!row) throw new Error(`No active user ${USER} in database ${process.env.DB_NAME}; seed it or set LOAD_USER_EMAIL.`);
+  const user = (await findUserById(Number(row.id)))!;
+  const token = await createToken(user, { label: `load ${new Date().toISOString()}` });
+  const approved = await db("protocol_versions as v").join("protocols as p", "p.id", "v.protocol_id").where("v.state", "approved").orderBy("v.id").first("p.id as pid", "v.number as n");
+  const other = await db("protocol_versions as v").join("protocols as p", "p.id", "v.protocol_id").whereNot("v.state", "approved").orderBy("v.id").first("p.id as pid", "v.number as n");
+  if (!approved || !other) throw new Error("The load test needs an approved and a not-approved protocol version (the demo seed has both).");
+  const results: Figures[] = [];
+  const notes: string[] = [];
+  try {
+    const { cookie, csrfCookie, csrfToken } = await signInCookie();
+    const bearer = { authorization: `Bearer ${token.secret}`, "content-type": "application/json" };
+    const sweep = JSON.stringify({
+      mediumPermittivity: 78.3,
+      frequencies: { start: 1e3, stop: 1e9, points: 241 },
+      conductivities: { start: 1e-4, stop: 1, points: 121 },
+      particles: [buildParticle("yeast-viable", PARTICLE_PRESETS.yeastViable.model), buildParticle("yeast-heat-killed", PARTICLE_PRESETS.yeastHeatKilled.model)],
+    });
+    const sheetUrl = `${BASE}/api/v1/protocols/${approved.pid}/versions/${approved.n}/bench-sheet?paper=a4&volumeMl=250`;
+    const warm = await fetch(sheetUrl, { headers: { cookie } });
+    if (warm.status !== 200) throw new Error(`Stored bench sheet warm-up answered ${warm.status}`);
+    const arrowProbe = await fetch(`${BASE}/api/v1/sweeps`, { method: "POST", headers: { ...bearer, accept: ARROW }, body: sweep });
+    const hasArrow = arrowProbe.headers.get("content-type")?.startsWith(ARROW) ?? false;
+    await arrowProbe.arrayBuffer();
+
+    if (want("signin")) results.push(await hammer("sign-in", `POST /api/auth/callback/credentials (${USER}, correct password)`, { url: `${BASE}/api/auth/callback/credentials`, method: "POST", headers: { "content-type": "application/x-www-form-urlencoded", cookie: csrfCookie }, body: new URLSearchParams({ csrfToken, email: USER, password: DEMO_PASSWORD, json: "true" }).toString() }));
+    if (want("sweeps")) results.push({ ...(await hammer("sweeps JSON", "POST /api/v1/sweeps 241 × 121, 2 particles, JSON", { url: `${BASE}/api/v1/sweeps`, method: "POST", headers: bearer, body: sweep })), target: "p95 ≤ 100 ms in Arrow; JSON stated" });
+    if (want("arrow")) {
+      if (hasArrow) results.push({ ...(await hammer("sweeps Arrow", "POST /api/v1/sweeps 241 × 121, Accept: Arrow IPC stream", { url: `${BASE}/api/v1/sweeps`, method: "POST", headers: { ...bearer, accept: ARROW }, body: sweep })), target: "p95 ≤ 100 ms" });
+      else notes.push("Sweeps in Arrow: this build does not offer Arrow yet (the probe got JSON), so it was not measured.");
+    }
+    if (want("list")) results.push({ ...(await hammer("protocol list", "GET /protocols (signed-in page)", { url: `${BASE}/protocols`, headers: { cookie } })), target: "p95 ≤ 300 ms" });
+    if (want("version")) results.push({ ...(await hammer("version page", `GET /protocols/${approved.pid}/versions/${approved.n}`, { url: `${BASE}/protocols/${approved.pid}/versions/${approved.n}`, headers: { cookie } })), target: "p95 ≤ 300 ms" });
+    if (want("sheet")) results.push({ ...(await hammer("stored bench sheet", `GET …/versions/${approved.n}/bench-sheet?paper=a4&volumeMl=250 (stored PDF)`, { url: sheetUrl, headers: { cookie } })), target: "p95 ≤ 300 ms" });
+    if (want("cheap")) {
+      const cheap = { url: `${BASE}/api/auth/session`, headers: { cookie } };
+      const alone = await hammer("cheap request alone", "GET /api/auth/session", cheap);
+      results.push(alone);
+      const drafts = autocannon({ url: `${BASE}/api/v1/protocols/${other.pid}/versions/${other.n}/bench-sheet?paper=a4`, headers: { cookie }, connections: 4, duration: SECONDS, timeout: 30 });
+      let pdfs = 0;
+      drafts.on("response", (_c, status) => {
+        if (status === 200) pdfs++;
+      });
+      const during = await hammer("cheap request during PDFs", "GET /api/auth/session while 4 clients fetch drafts' PDFs (drawn on demand)", cheap);
+      await drafts;
+      results.push({ ...during, target: `p95 within ±20 % of alone (${(alone.p95 * 0.8).toFixed(0)}–${(alone.p95 * 1.2).toFixed(0)} ms)` });
+      notes.push(`While the cheap request was measured, 4 other clients received ${pdfs} draft PDFs drawn on demand (${(pdfs / SECONDS).toFixed(1)}/s).`);
+    }
+  } finally {
+    await revokeToken(user, token.id);
+    await db.destroy();
+  }
+  const loadAfter = os.loadavg()[0];
+  const machine = `${os.cpus().length}× ${os.cpus()[0]?.model.trim() ?? "cpu"}, ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}`;
+  const md = [
+    "# Load test (`npm run load`)",
+    "",
+    `Written by scripts/load.ts on ${new Date().toISOString().slice(0, 16).replace("T", " ")} UTC, commit ${commit()}, against ${BASE}`,
+    `(\`next start\`, one process), autocannon on loopback, ${CONNECTIONS} connections for ${SECONDS} s per scenario unless noted.`,
+    `Machine: ${machine}. Load generator and server share it. 1-minute load average ${loadBefore.toFixed(1)} at the start and`,
+    `${loadAfter.toFixed(1)} at the end: **the machine was shared with other work during this run, so every figure is`,
+    "inflated by CPU contention and is an upper bound for a quiet machine.** Latency is at the client, queueing included.",
+    "Errors count connection errors, time-outs and any status other than 2xx/3xx.",
+    "",
+    "| scenario | request | responses | req/s | p50 (ms) | p95 (ms) | p99 (ms) | errors | statuses | target |",
+    "|---|---|---|---|---|---|---|---|---|---|",
+    ...results.map((r) => `| ${r.name} | ${r.what} | ${r.responses} | ${r.rps.toFixed(1)} | ${r.p50.toFixed(0)} | ${r.p95.toFixed(0)} | ${r.p99.toFixed(0)} | ${r.errors} | ${Object.entries(r.statuses).map(([s, c]) => `${s}×${c}`).join(" ")} | ${r.target ?? "—"} |`),
+    "",
+    ...notes.map((n) => `- ${n}`),
+    "",
+  ].join("\n");
+  mkdirSync("bench", { recursive: true });
+  writeFileSync("bench/load-results.md", md);
+  console.log("wrote bench/load-results.md");
+}
+
+main().catch(async (err) => {
+  console.error((err as Error).message);
+  await db.destroy().catch(() => undefined);
+  process.exit(1);
+});
