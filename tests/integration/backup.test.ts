@@ -39,7 +39,7 @@ describe("backup and restore", () => {
     process.env.S3_BUCKET = `sw-backup-${process.pid}`; // a bucket of its own: the restore replaces a bucket's contents
     await ensureBucket();
     await freshSchema();
-    await db.seed.run();
+    await exec("node", ["--import", "tsx", "scripts/seed.ts"], { env: process.env }); // the demo seed, as npm start runs it
     await putObject(newObjectKey("attachments/", "png"), new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 1, 2, 3]), "image/png");
     await putObject(newObjectKey("bench-sheets/", "pdf"), new TextEncoder().encode("%PDF-1.3 demo"), "application/pdf");
     await putObject(newObjectKey("attachments/", "csv"), new TextEncoder().encode("a,b\n1,2\n"), "text/csv");
@@ -74,7 +74,10 @@ describe("backup and restore", () => {
     const work = await mkdtemp(path.join(tmpdir(), "sw-backup-bad-"));
     await exec("tar", ["-xzf", archive, "-C", work]);
     const sql = path.join(work, "database.sql");
-    await writeFile(sql, (await readFile(sql, "utf8")).replace("sievewright-demo", "sievewright-DEMO"));
+    const original = await readFile(sql, "utf8");
+    const tampered = original.replace("Larkspur", "Larkspuz"); // one letter of a demo record changed after the backup
+    expect(tampered).not.toBe(original);
+    await writeFile(sql, tampered);
     const bad = path.join(work, "bad.tar.gz");
     await exec("tar", ["-czf", bad, "-C", work, "manifest.json", "database.sql", "objects"]);
     await expect(restoreBackup(bad, { force: true })).rejects.toBeInstanceOf(InputError);
