@@ -7,7 +7,7 @@ import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { formatConductivity, sig } from "@/lib/charts/format";
 import { ADDITION_KINDS, additionUnitLabel, BUFFER_FIELDS, bufferChoice, bufferStepSchema, libraryBufferToStep, predictRecipe, type BufferStepValues, type LibraryBufferContent } from "@/lib/planner-wizard/buffer-form";
 import { labelWithUnit, rangeInWords } from "@/lib/planner-wizard/lab-number";
-import { errorAt, NumField } from "./num-field";
+import { errorAt, NumField } from "@/components/forms/num-field";
 import { StepFooter } from "./step-footer";
 import { useAutosave } from "./use-autosave";
 

@@ -8,7 +8,7 @@ import { interdigitatedField } from "@/lib/dielectric";
 import { sci, sig } from "@/lib/charts/format";
 import { DEVICE_FIELDS, deviceStepSchema, EXTRA_UNITS, libraryDeviceToStep, meanFlowSpeed, type DeviceStepValues, type LibraryDeviceContent } from "@/lib/planner-wizard/device-form";
 import { labelWithUnit, rangeInWords } from "@/lib/planner-wizard/lab-number";
-import { errorAt, NumField } from "./num-field";
+import { errorAt, NumField } from "@/components/forms/num-field";
 import { StepFooter } from "./step-footer";
 import { useAutosave } from "./use-autosave";
 

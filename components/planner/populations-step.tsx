@@ -6,7 +6,7 @@ import { useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { populationFormSchema, populationsStepSchema, type PopulationsStepOutput, type PopulationsStepValues } from "@/lib/planner-wizard/population-form";
 import type { StartingPoint } from "@/lib/planner-wizard/starting-points";
-import { PopulationEditor, type LibraryPopulation } from "./population-editor";
+import { PopulationCard, type LibraryPopulation } from "./population-card";
 import { SpectrumPreview, type PreviewInput } from "./spectrum-preview";
 import { StepFooter } from "./step-footer";
 import { useAutosave } from "./use-autosave";
@@ -48,8 +48,8 @@ export function PopulationsStep({ draftId, initial, library, starts, medium, med
     <form onSubmit={handleSubmit(onValid, () => setFormError("Some fields need attention; each says what is allowed."))} noValidate className="space-y-6">
       <SpectrumPreview input={preview} mediumNote={mediumNote} />
       <div className="grid gap-6 xl:grid-cols-2">
-        <PopulationEditor which="target" heading="Target population (to keep)" values={values.target} register={register} setValue={setValue} errors={errors} library={library} starts={starts} />
-        <PopulationEditor which="other" heading="Population to remove" values={values.other} register={register} setValue={setValue} errors={errors} library={library} starts={starts} />
+        <PopulationCard which="target" heading="Target population (to keep)" values={values.target} register={register} setValue={setValue} errors={errors} library={library} starts={starts} />
+        <PopulationCard which="other" heading="Population to remove" values={values.other} register={register} setValue={setValue} errors={errors} library={library} starts={starts} />
       </div>
       <StepFooter backHref="/planner" nextLabel="Next: buffer" state={state} busy={isSubmitting} formError={formError} />
     </form>

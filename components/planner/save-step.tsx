@@ -6,7 +6,7 @@ import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { saveProtocolAction } from "@/lib/planner-wizard/actions";
 import { saveStepSchema, type SaveStepValues } from "@/lib/planner-wizard/save-form";
-import { errorAt, NumField } from "./num-field";
+import { errorAt, NumField } from "@/components/forms/num-field";
 import { SaveStatus } from "./save-status";
 import { useAutosave } from "./use-autosave";
 import { useHydrated } from "@/components/forms/use-hydrated";

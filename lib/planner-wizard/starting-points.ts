@@ -1,6 +1,7 @@
 import { EPSILON_0, PARTICLE_PRESETS, type ParticleModel } from "@/lib/dielectric";
 import { fromSI, tidy } from "@/lib/units/lab";
-import { blankPopulation, type ParamForm, type PopulationFormValues } from "./population-form";
+import type { ParamValues as ParamForm } from "@/lib/populations/form";
+import { blankPopulation, type PopulationFormValues } from "./population-form";
 
 /** A starting point the editor offers besides the library: the engine's presets with typical spreads. */
 export interface StartingPoint {

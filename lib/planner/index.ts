@@ -4,7 +4,8 @@
  */
 export { planWindows, PLANNER_VERSION, assumptions, crossoverCurve, type WindowsResult } from "./plan";
 export { sensitivity, type SensitivityResult, type SensitivityItem, type WindowRef, type Band } from "./sensitivity";
-export { windowsRequestSchema, populationSpecSchema, POPULATION_MODELS, PLANNER_LIMITS, type WindowsRequest, type PopulationSpec, type PopulationEntry, type SpreadParameter } from "./schema";
+export { windowsRequestSchema, PLANNER_LIMITS, type WindowsRequest, type PopulationSpec, type PopulationEntry, type SpreadParameter } from "./schema";
+export { populationSpecSchema, SHELL_MODELS } from "@/lib/populations/spec";
 export { defaultConstraints, defaultSeparation, DEFAULT_TARGET_SPEED, resolveConstraints, resolveSeparation, type Constraints, type SeparationSettings } from "./constraints";
 export { describeDesign, purity, type SortDesign } from "./design";
 export { SCORE_WEIGHTS, findRuns, type OperatingWindow, type ScorePart, type Run } from "./windows";

@@ -4,26 +4,18 @@
  */
 import type { Particle } from "@/lib/dielectric";
 import { mulberry32, normalSource, streamSeed } from "./prng";
+import { POPULATION_FIELDS } from "@/lib/populations/fields";
+import { fitLayer } from "@/lib/populations/spec";
 import type { PopulationSpec, SpreadParameter } from "./schema";
 
-/** Every parameter that can vary, with the physical range draws are truncated to (SI). Order fixes the random streams. */
-export const SPREAD_PARAMETERS = [
-  { path: "radius", min: 0.1e-6, max: 100e-6, unit: "m" },
-  { path: "interior.permittivity", min: 1, max: 200, unit: "" },
-  { path: "interior.conductivity", min: 1e-6, max: 20, unit: "S/m" },
-  { path: "membrane.capacitance", min: 1e-4, max: 0.2, unit: "F/m²" },
-  { path: "membrane.conductance", min: 0, max: 1e7, unit: "S/m²" },
-  { path: "wall.thickness", min: 5e-9, max: 2e-6, unit: "m" },
-  { path: "wall.permittivity", min: 1, max: 200, unit: "" },
-  { path: "wall.conductivity", min: 1e-6, max: 20, unit: "S/m" },
-  { path: "nucleus.radiusFraction", min: 0.1, max: 0.95, unit: "" },
-  { path: "nucleus.envelope.capacitance", min: 1e-4, max: 0.2, unit: "F/m²" },
-  { path: "nucleus.envelope.conductance", min: 0, max: 1e7, unit: "S/m²" },
-  { path: "nucleus.nucleoplasm.permittivity", min: 1, max: 200, unit: "" },
-  { path: "nucleus.nucleoplasm.conductivity", min: 1e-6, max: 20, unit: "S/m" },
-] as const;
+/**
+ * Every parameter that can vary, with the physical range draws are truncated to (SI), from the population field
+ * table (lib/populations/fields.ts). Order fixes the random streams.
+ */
+export const SPREAD_PARAMETERS: readonly { path: string; min: number; max: number; unit: string }[] = POPULATION_FIELDS.filter((f) => f.spread).map((f) => ({ path: f.path, min: f.min, max: f.max, unit: f.si }));
 
-export type SpreadPath = (typeof SPREAD_PARAMETERS)[number]["path"];
+/** Dotted path of a spread parameter, e.g. "membrane.capacitance". */
+export type SpreadPath = string;
 
 /**
  * The spread parameter at a dotted path, or undefined when the spec has no such part.
@@ -95,7 +87,9 @@ type Values = Partial<Record<SpreadPath, number>>;
 
 /**
  * The engine particle for one set of parameter values (means where a value is missing). The nucleated model's
- * cytoplasm becomes a thick shell between the membrane and the nuclear envelope.
+ * cytoplasm becomes a thick shell between the membrane and the nuclear envelope. Each layer is kept inside the one
+ * around it with `fitLayer` (the population schema's geometry rule; means that pass the schema are never changed,
+ * only sampled cells whose drawn radius is too small for their layers).
  * @example particleFrom("live", spec, { radius: 5.2e-6 })
  */
 export function particleFrom(id: string, spec: PopulationSpec, values: Values = {}): Particle {
@@ -107,16 +101,16 @@ export function particleFrom(id: string, spec: PopulationSpec, values: Values = 
     return { id, radius, core: { permittivity: interior.permittivity, conductivity: interior.conductivity + (2 * ks) / radius }, shells: [] };
   }
   const m = spec.membrane!;
-  const membrane = { thickness: Math.min(m.thickness, 0.2 * radius), capacitance: v("membrane.capacitance"), conductance: v("membrane.conductance") };
+  const membrane = { thickness: fitLayer(m.thickness, radius), capacitance: v("membrane.capacitance"), conductance: v("membrane.conductance") };
   if (spec.model === "single-shell") return { id, radius, core: interior, shells: [membrane] };
   if (spec.model === "walled") {
-    const wallThickness = Math.min(v("wall.thickness"), 0.5 * radius);
+    const wallThickness = fitLayer(v("wall.thickness"), radius - membrane.thickness);
     return { id, radius, core: interior, shells: [{ thickness: wallThickness, permittivity: v("wall.permittivity"), conductivity: v("wall.conductivity") }, membrane] };
   }
   const n = spec.nucleus!;
   const inside = radius - membrane.thickness;
-  const nucleusRadius = Math.min(v("nucleus.radiusFraction") * radius, 0.98 * inside);
-  const envelope = { thickness: Math.min(n.envelope.thickness, 0.5 * nucleusRadius), capacitance: v("nucleus.envelope.capacitance"), conductance: v("nucleus.envelope.conductance") };
+  const nucleusRadius = fitLayer(v("nucleus.radiusFraction") * radius, inside);
+  const envelope = { thickness: fitLayer(n.envelope.thickness, nucleusRadius), capacitance: v("nucleus.envelope.capacitance"), conductance: v("nucleus.envelope.conductance") };
   return {
     id,
     radius,

@@ -2,73 +2,12 @@
  * Request schema of `planWindows` (zod). SI units throughout; the generator limit is given peak-to-peak (Vpp),
  * as function generators are labelled, and results report both Vrms and Vpp.
  *
- * A population's `spec` has the same shape as the population library's spec (model, radius, interior, membrane,
- * wall, nucleus, each varying parameter as { mean, cv, distribution }), so a saved population can be passed as-is.
+ * A population's `spec` is checked by the one population schema (lib/populations/spec.ts), the same one the
+ * population library, the protocol content and the public API use, so a saved population can be passed as-is.
  */
 import { z } from "zod";
 import { describeValue, LIMITS, mediumConductivitySchema, quantity } from "@/lib/dielectric";
-
-const spread = (what: string, unit: string, min: number, max: number, range: string) =>
-  z.object(
-    {
-      mean: quantity({ what: `${what} mean (${unit})`, range, min, max }),
-      cv: quantity({ what: `${what} coefficient of variation`, range: "between 0 and 1 (0.1 = 10 %)", min: 0, max: 1 }),
-      distribution: z.enum(["normal", "lognormal"], { error: (iss) => `${what} distribution must be "normal" or "lognormal" (got ${describeValue(iss.input)})` }).optional(),
-    },
-    { error: (iss) => `${what} must be { mean, cv, distribution } (got ${describeValue(iss.input)})` },
-  );
-
-const thinLayer = (what: string) =>
-  z.object({
-    thickness: quantity({ what: `${what} thickness (m)`, range: "between 1 nm and 100 nm (1e-9 to 1e-7 m)", min: 1e-9, max: 1e-7 }),
-    capacitance: spread(`${what} capacitance`, "F/m²", 1e-4, 0.2, "between 1e-4 and 0.2 F/m² (0.01–20 µF/cm²)"),
-    conductance: spread(`${what} conductance`, "S/m²", 0, 1e7, "between 0 and 1e7 S/m²"),
-  });
-
-const body = (what: string) =>
-  z.object({
-    permittivity: spread(`${what} permittivity`, "relative", 1, 200, "between 1 and 200"),
-    conductivity: spread(`${what} conductivity`, "S/m", 1e-6, 20, "between 1e-6 and 20 S/m"),
-  });
-
-/** The shell models a population can use. */
-export const POPULATION_MODELS = ["homogeneous", "single-shell", "walled", "nucleated"] as const;
-
-/** A population's dielectric model with spreads. */
-export const populationSpecSchema = z
-  .object({
-    model: z.enum(POPULATION_MODELS, { error: (iss) => `model must be one of ${POPULATION_MODELS.join(", ")} (got ${describeValue(iss.input)})` }),
-    radius: spread("radius", "m", 0.1e-6, 100e-6, "between 0.1 µm and 100 µm (1e-7 to 1e-4 m)"),
-    interior: body("interior"),
-    surfaceConductance: quantity({ what: "surface conductance (S)", range: "between 0 and 1e-7 S", min: 0, max: 1e-7 }).optional(),
-    membrane: thinLayer("membrane").optional(),
-    wall: z
-      .object({
-        thickness: spread("wall thickness", "m", 5e-9, 2e-6, "between 5 nm and 2 µm"),
-        permittivity: spread("wall permittivity", "relative", 1, 200, "between 1 and 200"),
-        conductivity: spread("wall conductivity", "S/m", 1e-6, 20, "between 1e-6 and 20 S/m"),
-      })
-      .optional(),
-    nucleus: z
-      .object({
-        radiusFraction: spread("nucleus radius fraction", "of the cell radius", 0.1, 0.95, "between 0.1 and 0.95"),
-        envelope: thinLayer("nuclear envelope"),
-        nucleoplasm: body("nucleoplasm"),
-      })
-      .optional(),
-  })
-  .superRefine((p, ctx) => {
-    const need = (key: "membrane" | "wall" | "nucleus") => {
-      if (!p[key]) ctx.addIssue({ code: "custom", path: [key], message: `the ${p.model} model needs the ${key} parameters` });
-    };
-    if (p.model !== "homogeneous") need("membrane");
-    if (p.model === "walled") need("wall");
-    if (p.model === "nucleated") need("nucleus");
-    const shells = (p.membrane?.thickness ?? 0) + (p.wall ? p.wall.thickness.mean : 0);
-    if (shells >= 0.5 * p.radius.mean) {
-      ctx.addIssue({ code: "custom", path: ["radius", "mean"], message: `mean radius ${describeValue(p.radius.mean)} m leaves no room for shells ${describeValue(shells)} m thick; shells must be under half the radius` });
-    }
-  });
+import { populationSpecSchema, type PopulationSpec, type SpreadParam } from "@/lib/populations/spec";
 
 const populationSchema = z.object({
   id: z.string({ error: "population id must be text" }).min(1, { error: "population id must not be empty" }).max(200, { error: "population id must be at most 200 characters" }),
@@ -198,9 +137,9 @@ export const windowsRequestSchema = z
 
 /** A `planWindows` request (see `windowsRequestSchema`). */
 export type WindowsRequest = z.input<typeof windowsRequestSchema>;
-/** A population's spec with spreads. */
-export type PopulationSpec = z.infer<typeof populationSpecSchema>;
+/** A population's spec with spreads (lib/populations/spec.ts). */
+export type { PopulationSpec };
 /** A population in a request. */
 export type PopulationEntry = z.infer<typeof populationSchema>;
 /** One varying parameter: mean, coefficient of variation, distribution. */
-export type SpreadParameter = PopulationSpec["radius"];
+export type SpreadParameter = SpreadParam;

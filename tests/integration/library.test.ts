@@ -71,7 +71,7 @@ describe("library service against MariaDB", () => {
     expect(history.map((v) => v.version)).toEqual([2, 1]);
     expect((await getItemVersion("populations", id, 1)).content.spec.radius.mean).toBe(5e-6);
     const diff = diffVersions("populations", history[1], history[0]).filter((r) => r.changed);
-    expect(diff).toEqual([expect.objectContaining({ label: "Radius", before: "5 µm ± 10 % CV (normal)", after: "6 µm ± 10 % CV (normal)" })]);
+    expect(diff).toEqual([expect.objectContaining({ label: "Cell radius", before: "5 µm ± 10 % CV (normal)", after: "6 µm ± 10 % CV (normal)" })]);
     await expect(reviseItem(actor, "populations", id, { content: live("Live A", 7e-6), provenance: assumed, changeNote: "late" }, { baseVersion: 1 })).rejects.toBeInstanceOf(ConflictError);
   });
 

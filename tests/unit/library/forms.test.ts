@@ -13,26 +13,26 @@ describe("library forms (lab units) and stored content (SI)", () => {
   it("round-trips a population: SI → form in µm/µF/cm²/% → SI", () => {
     const content = { ...BLANK.populations, name: "Round trip" };
     const form = { ...formDefaults("populations", { content, provenance: { kind: "assumed", source: "" } } as ItemVersion<typeof content>), ...meta };
-    expect(form.params.radius).toEqual({ mean: 5, cv: 10, distribution: "normal" }); // 5e-6 m = 5 µm (SI prefix definition)
-    expect(form.params.membraneCapacitance.mean).toBe(1); // 0.01 F/m² = 1 µF/cm²
+    expect(form.radius).toEqual({ mean: 3.5, cv: 10, distribution: "normal" }); // 3.5e-6 m = 3.5 µm (SI prefix definition)
+    expect(form.membrane.capacitance.mean).toBe(1); // 0.01 F/m² = 1 µF/cm²
     const back = populationFormToContent(populationFormSchema.parse(form));
     expect(populationContentSchema.parse(back)).toEqual(content);
   });
 
   it("checks only the chosen model's parameters and names range and unit in the message", () => {
     const form = { ...formDefaults("populations", null), ...meta, name: "Bad radius" };
-    form.params.radius = { mean: 250, cv: 10, distribution: "normal" };
-    form.params.wallThickness = { mean: Number.NaN, cv: 0, distribution: "normal" }; // not part of single-shell: ignored
+    form.radius = { mean: 250, cv: 10, distribution: "normal" };
+    form.wall.thickness = { mean: Number.NaN, cv: 0, distribution: "normal" }; // not part of single-shell: ignored
     const r = populationFormSchema.safeParse(form);
     expect(r.success).toBe(false);
-    expect(r.error!.issues.map((i) => [i.path.join("."), i.message])).toEqual([["params.radius.mean", "Radius: enter a number between 0.1 and 100 µm."]]);
+    expect(r.error!.issues.map((i) => [i.path.join("."), i.message])).toEqual([["radius.mean", "Cell radius (µm): enter a number between 0.1 and 100 µm."]]);
   });
 
   it("switching a population to the walled model requires the wall", () => {
     const form = { ...formDefaults("populations", null), ...meta, name: "Walled", model: "walled" as const };
     const content = populationFormToContent(populationFormSchema.parse(form));
-    expect(content.spec.wall?.thickness.mean).toBeCloseTo(200e-9, 15);
-    expect(describePopulation(content).find((r) => r.key === "wallThickness")?.value).toBe("200 nm (no spread)");
+    expect(content.spec.wall?.thickness.mean).toBeCloseTo(220e-9, 15);
+    expect(describePopulation(content).find((r) => r.key === "wall.thickness")?.value).toBe("220 nm (no spread)");
   });
 
   it("converts a buffer form in mS/m, mOsm/kg and % to SI, and back", () => {
@@ -68,7 +68,7 @@ describe("library forms (lab units) and stored content (SI)", () => {
     const v = (radius: number, prov: "assumed" | "measured") => ({ content: { ...BLANK.populations, name: "D", spec: { ...BLANK.populations.spec, radius: { mean: radius, cv: 0.1, distribution: "normal" as const } } }, provenance: { kind: prov, source: "" } }) as ItemVersion<typeof BLANK.populations>;
     const changed = diffVersions("populations", v(5e-6, "assumed"), v(5.5e-6, "measured")).filter((r) => r.changed);
     expect(changed.map((r) => [r.label, r.before, r.after])).toEqual([
-      ["Radius", "5 µm ± 10 % CV (normal)", "5.5 µm ± 10 % CV (normal)"],
+      ["Cell radius", "5 µm ± 10 % CV (normal)", "5.5 µm ± 10 % CV (normal)"],
       ["Provenance", "Assumed (literature or estimate)", "Measured"],
     ]);
   });
