@@ -1,8 +1,9 @@
 /**
  * Crossover frequencies: every sign change of Re[K] inside a frequency range. Re[K] is bracketed on a log grid
- * (100 points per decade); close pairs of crossovers that fall between two grid points are caught by searching
- * each local minimum of |Re[K]| for a sign change. Each root is refined with Brent's method in ln f to 1e-11
- * absolute, i.e. well inside 1e-9 relative in frequency.
+ * (100 points per decade) that runs a few grid steps past both ends of the range, so a root (or a close pair of
+ * roots) just inside an edge still has grid points on both sides; roots outside the range are then dropped. Close
+ * pairs that fall between two grid points are caught by searching each local minimum of |Re[K]| for a sign change.
+ * Each root is refined with Brent's method in ln f to 1e-11 absolute, i.e. well inside 1e-9 relative in frequency.
  */
 import { realCM } from "./cm";
 import { effectivePermittivityInto, type CompiledParticle } from "./shells";
@@ -15,6 +16,9 @@ export const DEFAULT_CROSSOVER_RANGE = { start: 1e3, stop: 1e9 } as const;
 
 /** Grid density used to bracket sign changes, points per decade. */
 export const CROSSOVER_POINTS_PER_DECADE = 100;
+
+/** Grid steps the bracketing grid extends past each end of the search range (roots found there are dropped). */
+export const CROSSOVER_EDGE_STEPS = 4;
 
 const LN_TOL = 1e-11;
 const MAX_DIP_SEARCHES = 64;
@@ -86,5 +90,8 @@ export function crossoverFrequencies(
   const xa = Math.log(range.start);
   const xb = Math.log(range.stop);
   const n = Math.max(8, Math.ceil(((xb - xa) / Math.LN10) * CROSSOVER_POINTS_PER_DECADE));
-  return signChanges(g, xa, xb, n).map(Math.exp);
+  const pad = CROSSOVER_EDGE_STEPS * ((xb - xa) / n);
+  return signChanges(g, xa - pad, xb + pad, n + 2 * CROSSOVER_EDGE_STEPS)
+    .filter((x) => x >= xa && x <= xb)
+    .map(Math.exp);
 }

@@ -33,4 +33,5 @@ export * from "./medium";
 export * from "./buffer";
 export * from "./motion";
 export * from "./sideEffects";
+export * from "./arrayHeating";
 export * from "./presets";

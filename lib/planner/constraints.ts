@@ -97,3 +97,26 @@ export function resolveConstraints(partial: Partial<Constraints> = {}): Constrai
 export function resolveSeparation(partial: Partial<SeparationSettings> = {}): SeparationSettings {
   return { margin: partial.margin ?? defaultSeparation.margin.value, slowCellQuantile: partial.slowCellQuantile ?? defaultSeparation.slowCellQuantile.value };
 }
+
+/** An osmolality band (osmol/kg) accepted for a kind of cell, with the reason and the cells it fits. */
+export interface OsmolalityBand {
+  min: number;
+  max: number;
+  cells: "walled" | "mammalian";
+  reason: string;
+}
+
+/** Bands by cell kind: walled cells (yeast, bacteria, plant cells) resist swelling; cells without a wall do not. */
+export const OSMOLALITY_BANDS: Record<OsmolalityBand["cells"], OsmolalityBand> = {
+  mammalian: { min: 0.27, max: 0.33, cells: "mammalian", reason: "usual band for mammalian cells (no wall): below about 270 mOsm/kg they swell and may lyse, above about 330 mOsm/kg they shrink (common practice)" },
+  walled: { min: 0, max: 1, cells: "walled", reason: "usual band for walled cells such as yeast: the wall holds them in hypotonic media, and above about 1 osmol/kg they lose water (common practice, value from memory)" },
+};
+
+/**
+ * The osmolality band that fits the populations: the walled band only when every population has a wall.
+ * @example osmolalityBandFor(["walled", "walled"]).max // → 1
+ * @example osmolalityBandFor(["single-shell", "single-shell"]).min // → 0.27
+ */
+export function osmolalityBandFor(models: string[]): OsmolalityBand {
+  return models.length > 0 && models.every((m) => m === "walled") ? OSMOLALITY_BANDS.walled : OSMOLALITY_BANDS.mammalian;
+}

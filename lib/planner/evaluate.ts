@@ -47,6 +47,34 @@ export interface GridSetup {
   osmolalityOk: boolean;
   /** Target's mean cell for the transmembrane potential, or null when it has no membrane. */
   membrane: { radius: number; capacitance: number; cytoplasmConductivity: number } | null;
+  /** Temperature rise per σV² (K per (S/m · V²)): the isolated-pair and array estimates, and which one is checked. */
+  heating: HeatingModel;
+  /** The generator's frequency range, Hz, or null when not given. */
+  frequencyRange: { min: number; max: number } | null;
+}
+
+/** Temperature rise per unit σV² of each estimate (K·m/(S·V²)); `checked` is the one the limit applies to. */
+export interface HeatingModel {
+  isolated: number;
+  array: number | null;
+  checked: "isolated" | "array";
+}
+
+/**
+ * Why a grid point is refused, one bit each in `GridResult.blockers`. "recovery" and "purity" mean the pair does
+ * not separate well enough even at the voltage the speed needs; "generator", "heating", "transmembrane" and
+ * "electrothermal" mean it would, but that limit holds the voltage too low.
+ */
+export const BLOCKERS = ["recovery", "purity", "generator", "heating", "transmembrane", "electrothermal", "acElectroosmosis", "osmolality", "frequencyRange"] as const;
+export type Blocker = (typeof BLOCKERS)[number];
+const BIT = Object.fromEntries(BLOCKERS.map((b, k) => [b, 1 << k])) as Record<Blocker, number>;
+
+/**
+ * The blockers in a bit mask.
+ * @example blockersOf(0b1000000) // → ["acElectroosmosis"]
+ */
+export function blockersOf(mask: number): Blocker[] {
+  return BLOCKERS.filter((b) => (mask & BIT[b]) !== 0);
 }
 
 /** What limited the voltage at a point. */
@@ -70,6 +98,13 @@ export interface GridResult {
   electrothermalRatio: Float64Array;
   transmembranePotential: Float64Array;
   aceo: Uint8Array;
+  /** Bit mask of `BLOCKERS` that refuse the point (0 when feasible). */
+  blockers: Uint16Array;
+  /** Recovery and purity at the voltage the speed needs, as if no limit held it down. */
+  recoveryUnlimited: Float64Array;
+  purityUnlimited: Float64Array;
+  /** Voltage limits at the point, V rms: generator, heating, transmembrane, electrothermal (Infinity = none). */
+  voltageCaps: { generator: number; heating: Float64Array; transmembrane: Float64Array; electrothermal: Float64Array };
   targetPositive: Float64Array;
   targetNegative: Float64Array;
   otherPositive: Float64Array;
@@ -164,6 +199,10 @@ function allocate(nf: number, nc: number): GridResult {
     electrothermalRatio: new Float64Array(size),
     transmembranePotential: new Float64Array(size),
     aceo: new Uint8Array(size),
+    blockers: new Uint16Array(size),
+    recoveryUnlimited: new Float64Array(size),
+    purityUnlimited: new Float64Array(size),
+    voltageCaps: { generator: Number.POSITIVE_INFINITY, heating: new Float64Array(size), transmembrane: new Float64Array(size), electrothermal: new Float64Array(size) },
     targetPositive: new Float64Array(size),
     targetNegative: new Float64Array(size),
     otherPositive: new Float64Array(size),
@@ -198,6 +237,17 @@ export function evaluateGrid(s: GridSetup): GridResult {
   const moveT = design === 0 || design >= 2;
   const moveO = design === 1 || design === 2;
   const x = s.targetFraction;
+  const heatPerSV2 = s.heating.checked === "array" && s.heating.array !== null ? s.heating.array : s.heating.isolated;
+  const fr = s.frequencyRange;
+  res.voltageCaps.generator = s.maxVoltageRms;
+  /** Recovery and contamination of the design at a speed threshold (r²·|Re[K]| the slow cells must reach). */
+  const perform = (threshold: number, tm: number, om: number, oPos: number, tSlow: number): [number, number] => {
+    if (design === 0) return [countAtLeast(tVals, tm, threshold) / n, oPos / n];
+    if (design === 1) return [1 - tm / n, 1 - countAtLeast(oVals, om, threshold) / n];
+    if (design === 2) return [countAtLeast(tVals, tm, threshold) / n, 1 - countAtLeast(oVals, om, threshold) / n];
+    return [countAtLeast(tVals, tm, threshold) / n, countFastOther(oK, oR2, n, dirSaved, margin, tSlow / 2) / n];
+  };
+  let dirSaved = 1;
 
   for (let j = 0; j < nf; j++) {
     const f = s.frequencies[j];
@@ -233,7 +283,7 @@ export function evaluateGrid(s: GridSetup): GridResult {
       const needFinite = vNeeded > 0;
       if (!needFinite) vNeeded = Number.POSITIVE_INFINITY;
 
-      const vHeat = Math.sqrt((8 * s.thermalConductivity * c.maxTemperatureRise) / sigma);
+      const vHeat = Math.sqrt(c.maxTemperatureRise / (heatPerSV2 * sigma));
       const mb = s.membrane;
       const tmpPerVolt = mb
         ? transmembranePotential({ fieldPeak: Math.SQRT2 * s.fieldPerVolt, radius: mb.radius, capacitance: mb.capacitance, cytoplasmConductivity: mb.cytoplasmConductivity, mediumConductivity: sigma, frequencyHz: f })
@@ -247,36 +297,45 @@ export function evaluateGrid(s: GridSetup): GridResult {
       if (vHeat < v) { v = vHeat; by = 2; }
       if (vTmp < v) { v = vTmp; by = 3; }
       if (vEt < v) { v = vEt; by = 4; }
+      dirSaved = dirT;
       // At the speed-set voltage the threshold is exactly the slow-cell value (avoids rounding through the square root).
       const threshold = by === 0 && needFinite ? slowest : k0 / (v * v);
-      let recovery: number;
-      let contamination: number;
-      if (design === 0) {
-        recovery = countAtLeast(tVals, tm, threshold) / n;
-        contamination = oPos / n;
-      } else if (design === 1) {
-        recovery = 1 - tm / n;
-        contamination = 1 - countAtLeast(oVals, om, threshold) / n;
-      } else if (design === 2) {
-        recovery = countAtLeast(tVals, tm, threshold) / n;
-        contamination = 1 - countAtLeast(oVals, om, threshold) / n;
-      } else {
-        recovery = countAtLeast(tVals, tm, threshold) / n;
-        contamination = countFastOther(oK, oR2, n, dirT, margin, tSlow / 2) / n;
-      }
+      const [recovery, contamination] = perform(threshold, tm, om, oPos, tSlow);
       const pur = purity(recovery, contamination, x);
+      const [recoveryU, contaminationU] = by === 0 || !needFinite ? [recovery, contamination] : perform(slowest, tm, om, oPos, tSlow);
+      const purU = by === 0 || !needFinite ? pur : purity(recoveryU, contaminationU, x);
       const aceo = acElectroosmosisRank(f, sigma);
+      let mask = 0;
+      const separatesUnlimited = recoveryU > 0 && recoveryU >= c.minRecovery && purU >= c.minPurity;
+      if (!(recoveryU > 0 && recoveryU >= c.minRecovery)) mask |= BIT.recovery;
+      if (!(purU >= c.minPurity)) mask |= BIT.purity;
+      if (separatesUnlimited && !(recovery > 0 && recovery >= c.minRecovery && pur >= c.minPurity)) {
+        // Every limit below the needed voltage would hold it down on its own.
+        if (s.maxVoltageRms < vNeeded) mask |= BIT.generator;
+        if (vHeat < vNeeded) mask |= BIT.heating;
+        if (vTmp < vNeeded) mask |= BIT.transmembrane;
+        if (vEt < vNeeded) mask |= BIT.electrothermal;
+      }
+      if (aceo > aceoMax) mask |= BIT.acElectroosmosis;
+      if (!s.osmolalityOk) mask |= BIT.osmolality;
+      if (fr !== null && (f < fr.min * (1 - 1e-9) || f > fr.max * (1 + 1e-9))) mask |= BIT.frequencyRange;
       res.recovery[idx] = recovery;
       res.contamination[idx] = contamination;
       res.purity[idx] = pur;
+      res.recoveryUnlimited[idx] = recoveryU;
+      res.purityUnlimited[idx] = purU;
       res.voltageRms[idx] = v;
       res.voltageNeededRms[idx] = vNeeded;
       res.limitedBy[idx] = by;
-      res.temperatureRise[idx] = (sigma * v * v) / (8 * s.thermalConductivity);
+      res.voltageCaps.heating[idx] = vHeat;
+      res.voltageCaps.transmembrane[idx] = vTmp;
+      res.voltageCaps.electrothermal[idx] = vEt;
+      res.temperatureRise[idx] = heatPerSV2 * sigma * v * v;
       res.electrothermalRatio[idx] = needFinite ? (cEt * v * v * vNeeded * vNeeded) / s.targetSpeed : Number.NaN;
       res.transmembranePotential[idx] = s.membrane ? tmpPerVolt * v : Number.NaN;
       res.aceo[idx] = aceo;
-      res.feasible[idx] = recovery > 0 && recovery >= c.minRecovery && pur >= c.minPurity && aceo <= aceoMax && s.osmolalityOk ? 1 : 0;
+      res.blockers[idx] = mask;
+      res.feasible[idx] = mask === 0 && recovery > 0 && recovery >= c.minRecovery && pur >= c.minPurity ? 1 : 0;
     }
   }
   return res;

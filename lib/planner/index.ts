@@ -6,12 +6,14 @@ export { planWindows, PLANNER_VERSION, assumptions, crossoverCurve, type Windows
 export { sensitivity, type SensitivityResult, type SensitivityItem, type WindowRef, type Band } from "./sensitivity";
 export { windowsRequestSchema, PLANNER_LIMITS, type WindowsRequest, type PopulationSpec, type PopulationEntry, type SpreadParameter } from "./schema";
 export { populationSpecSchema, SHELL_MODELS } from "@/lib/populations/spec";
-export { defaultConstraints, defaultSeparation, DEFAULT_TARGET_SPEED, resolveConstraints, resolveSeparation, type Constraints, type SeparationSettings } from "./constraints";
+export { defaultConstraints, defaultSeparation, DEFAULT_TARGET_SPEED, resolveConstraints, resolveSeparation, osmolalityBandFor, OSMOLALITY_BANDS, type Constraints, type SeparationSettings, type OsmolalityBand } from "./constraints";
 export { describeDesign, purity, type SortDesign } from "./design";
-export { SCORE_WEIGHTS, findRuns, type OperatingWindow, type ScorePart, type Run } from "./windows";
+export { SCORE_WEIGHTS, findRuns, findRegions, type OperatingWindow, type ScorePart, type Run, type Region } from "./windows";
+export { crossoverBranches, meanCellGrid, type Branch } from "./branches";
+export { diagnose, reasonsAt, BLOCKER_LABELS, type Diagnosis, type BlockerCount, type BlockedPoint, type BlockingReason } from "./diagnosis";
 export { MODEL_PREDICTION_WARNING, type PlannerWarning, type WarningSeverity } from "./warnings";
-export { evaluateGrid, LIMITED_BY, type GridResult, type GridSetup, type LimitedBy, type PopulationSample } from "./evaluate";
-export { resolveRequest, buildSetup, REQUEST_DEFAULTS, type ResolvedRequest } from "./prepare";
+export { evaluateGrid, LIMITED_BY, BLOCKERS, blockersOf, type Blocker, type GridResult, type GridSetup, type HeatingModel, type LimitedBy, type PopulationSample } from "./evaluate";
+export { resolveRequest, buildSetup, poiseuilleSpeed, REQUEST_DEFAULTS, DEFAULT_ARRAY_AREA, type ResolvedRequest } from "./prepare";
 export { samplePopulation, particleFrom, presentParameters, drawValue, withMean, spreadAt, SPREAD_PARAMETERS, type SpreadPath } from "./populations";
 export { mulberry32, fmix32, streamSeed, normalSource } from "./prng";
 export { kthSmallest } from "./select";

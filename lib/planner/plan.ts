@@ -4,11 +4,14 @@
  */
 import { compileParticle, crossoverFrequencies, ENGINE_VERSION, vppToVrms } from "@/lib/dielectric";
 import type { Constraints, SeparationSettings } from "./constraints";
+import { crossoverBranches, meanCellGrid, type Branch } from "./branches";
 import { describeDesign, type SortDesign } from "./design";
-import { evaluateGrid, type GridResult } from "./evaluate";
+import { diagnose, type Diagnosis } from "./diagnosis";
+import { BLOCKERS, evaluateGrid } from "./evaluate";
 import { particleFrom } from "./populations";
 import { buildSetup, resolveRequest, type ResolvedRequest } from "./prepare";
 import type { WindowsRequest } from "./schema";
+import { hz } from "./text";
 import { MODEL_PREDICTION_WARNING, type PlannerWarning } from "./warnings";
 import { rankWindows, type OperatingWindow, type WindowContext } from "./windows";
 
@@ -31,6 +34,14 @@ export interface WindowsResult {
     medium: { temperatureC: number; permittivity: number; viscosity: number; thermalConductivity: number; osmolality: number | null };
     device: { source: string; approximation: string; gamma: number; fieldPerVolt: number; maxVoltageVpp: number; maxVoltageRms: number };
     targetSpeed: { value: number; source: string };
+    /** Heating estimates: K per (S/m · V²) for the isolated pair and the array, which one the limit checks, and why. */
+    heating: { isolatedPerSigmaV2: number; arrayPerSigmaV2: number | null; checked: "isolated" | "array"; arrayArea: number | null; effectiveThermalConductivity: number | null; description: string };
+    /** Capture against a flow: the evaluation height (m), mean and local flow speeds (m/s); null otherwise. */
+    holding: { height: number; heightSource: string; meanFlowSpeed: number; localFlowSpeed: number; crossingSpeed: number | null } | null;
+    /** The osmolality band that fits these cells (osmol/kg), used when the request gives none. */
+    osmolalityBand: { min: number; max: number; cells: "walled" | "mammalian"; reason: string };
+    /** The generator's frequency range (Hz), or null when not given. */
+    frequencyRange: { min: number; max: number | null } | null;
     assumptions: string[];
   };
   grid: { frequencies: number[]; conductivities: number[]; layout: string };
@@ -41,8 +52,17 @@ export interface WindowsResult {
     purity: number[];
     voltageRms: number[];
     fractions: { populationId: string; positive: number[]; negative: number[] }[];
+    /** Re[K] of each population's mean cell (4 significant digits). */
+    reK: { populationId: string; values: number[] }[];
+    /** Why each point is refused: a bit mask over `blockerCodes` (bit k = blockerCodes[k]); 0 = feasible. */
+    blockers: number[];
+    blockerCodes: string[];
   };
-  crossovers: { populationId: string; byConductivity: number[][] }[];
+  /** Crossovers of each population's mean cell: the roots at each conductivity row (Hz), and the branches of the
+   * zero contour of Re[K] on the grid as [frequency Hz, conductivity S/m] polylines, for drawing. */
+  crossovers: { populationId: string; byConductivity: number[][]; branches: Branch[] }[];
+  /** Points each constraint removes and what blocks the best-separating points. */
+  diagnosis: Diagnosis;
   windows: OperatingWindow[];
   windowCount: number;
   warnings: PlannerWarning[];
@@ -62,7 +82,9 @@ export function assumptions(r: ResolvedRequest): string[] {
     `A cell counts as moving one way when |Re[K]| exceeds the margin ${r.separation.margin}; it counts as reaching its outlet when, in addition, its Stokes DEP speed reaches ${r.targetSpeed} m/s.`,
     `The voltage at each point is the one that brings the slowest ${(r.separation.slowCellQuantile * 100).toFixed(0)} % of the cells that must move up to the target speed, lowered if needed to the generator limit and to the heating, transmembrane-potential and electrothermal limits.`,
     `Field gradient: ${r.field.approximation}`,
-    "Medium conductivity values are at the operating temperature. Joule heating ΔT ≈ σV²/(8k) (Ramos et al. 1998); electrothermal speed is an order-of-magnitude scaling estimate; AC electro-osmosis by frequency/conductivity regime.",
+    `Medium conductivity values are at the operating temperature. ${r.heating.description} Electrothermal speed is an order-of-magnitude scaling estimate; AC electro-osmosis by frequency/conductivity regime.`,
+    ...(r.holding ? [`Capture against a flow: the DEP speed of the captured cells at ${r.holding.height} m above the electrodes (${r.holding.heightSource}) must reach the local flow speed ${r.holding.localFlowSpeed.toPrecision(3)} m/s of the parabolic profile u(z) = 6ū(z/H)(1 − z/H) (DEP force above the Stokes drag; wall corrections neglected).`] : []),
+    ...(r.frequencyRange ? [`Grid points outside the generator's frequency range are refused.`] : []),
     "Induced transmembrane potential (Schwan) on the target's mean cell at the field in the electrode gap (V/gap).",
     "These are model predictions: verify on the bench and follow your institution's biosafety and electrical-safety rules.",
   ];
@@ -91,6 +113,8 @@ export function windowContext(r: ResolvedRequest, frequencies: number[], conduct
     otherId: r.other.id,
     constraints: r.constraints,
     maxVoltageRms: vppToVrms(r.maxVoltageVpp),
+    heating: { isolated: r.heating.isolated, array: r.heating.array, checked: r.heating.checked },
+    holdingSpeed: r.holding?.localFlowSpeed ?? null,
     crossovers: pops.map((p) => ({
       populationId: p.id,
       byConductivity: crossoverCurve(specs?.[p.id] ?? p.spec, conductivities, r.mediumPermittivity, frequencies[0], frequencies[frequencies.length - 1]),
@@ -98,7 +122,7 @@ export function windowContext(r: ResolvedRequest, frequencies: number[], conduct
   };
 }
 
-function globalWarnings(r: ResolvedRequest, g: GridResult, windows: OperatingWindow[]): PlannerWarning[] {
+function globalWarnings(r: ResolvedRequest, d: Diagnosis, windows: OperatingWindow[]): PlannerWarning[] {
   const out: PlannerWarning[] = [MODEL_PREDICTION_WARNING];
   const c = r.constraints;
   if (r.osmolality !== null && (r.osmolality < c.osmolalityMin || r.osmolality > c.osmolalityMax)) {
@@ -111,16 +135,25 @@ function globalWarnings(r: ResolvedRequest, g: GridResult, windows: OperatingWin
       advice: "Adjust the sugar content of the buffer (about 8.5 % w/v sucrose + 0.3 % w/v glucose is near 290 mOsm/kg).",
     });
   }
+  const fr = r.frequencyRange;
+  if (fr !== null && (r.frequencies[0] < fr.min || r.frequencies[r.frequencies.length - 1] > fr.max)) {
+    out.push({
+      code: "frequency-range",
+      severity: "caution",
+      message: `The sweep runs from ${hz(r.frequencies[0])} to ${hz(r.frequencies[r.frequencies.length - 1])}, beyond the generator's ${hz(fr.min)}–${Number.isFinite(fr.max) ? hz(fr.max) : "no upper limit"}; points outside that range are refused and windows are cut at its edges.`,
+      value: null,
+      limit: null,
+      advice: "Use a generator that covers the band you need, or accept the windows inside its range.",
+    });
+  }
   if (windows.length === 0) {
-    let best = 0;
-    for (let k = 1; k < g.recovery.length; k++) if (g.recovery[k] * g.purity[k] > g.recovery[best] * g.purity[best]) best = k;
     out.push({
       code: "no-window",
       severity: "warning",
-      message: `No operating window meets every constraint. Best point: ${r.frequencies[best % g.nf].toPrecision(3)} Hz at ${r.conductivities[Math.floor(best / g.nf)].toPrecision(3)} S/m with recovery ${g.recovery[best].toFixed(2)} and purity ${g.purity[best].toFixed(2)}.`,
-      value: g.recovery[best] * g.purity[best],
+      message: d.summary,
+      value: d.best[0] ? d.best[0].recovery * d.best[0].purity : null,
       limit: c.minRecovery * c.minPurity,
-      advice: "Widen the conductivity range, lower the minimum recovery or purity, relax a side-effect limit, or try another sort design.",
+      advice: d.best[0]?.reasons.length ? `Change: ${d.best[0].reasons.map((x) => x.change).join("; or ")}.` : "Widen the conductivity or frequency range, or try another sort design.",
     });
   }
   return out;
@@ -144,6 +177,8 @@ export function planWindows(req: WindowsRequest): WindowsResult {
   const all = rankWindows(g, ctx);
   const score = new Float64Array(g.recovery.length);
   for (let k = 0; k < score.length; k++) score[k] = g.recovery[k] * g.purity[k];
+  const diagnosis = diagnose(g, { frequencies: r.frequencies, conductivities: r.conductivities, constraints: r.constraints, maxVoltageVpp: r.maxVoltageVpp, osmolality: r.osmolality, frequencyRange: r.frequencyRange });
+  const means = [r.target, r.other].map((p) => ({ id: p.id, particle: particleFrom(p.id, p.spec) }));
   return {
     engineVersion: ENGINE_VERSION,
     plannerVersion: PLANNER_VERSION,
@@ -159,6 +194,10 @@ export function planWindows(req: WindowsRequest): WindowsResult {
       medium: { temperatureC: r.temperatureC, permittivity: r.mediumPermittivity, viscosity: r.viscosity, thermalConductivity: r.thermalConductivity, osmolality: r.osmolality },
       device: { source: r.field.source, approximation: r.field.approximation, gamma: r.field.gamma, fieldPerVolt: r.field.fieldPerVolt, maxVoltageVpp: r.maxVoltageVpp, maxVoltageRms: setup.maxVoltageRms },
       targetSpeed: { value: r.targetSpeed, source: r.targetSpeedSource },
+      heating: { isolatedPerSigmaV2: r.heating.isolated, arrayPerSigmaV2: r.heating.array, checked: r.heating.checked, arrayArea: r.heating.arrayArea, effectiveThermalConductivity: r.heating.effectiveThermalConductivity, description: r.heating.description },
+      holding: r.holding,
+      osmolalityBand: r.osmolalityBand,
+      frequencyRange: r.frequencyRange ? { min: r.frequencyRange.min, max: Number.isFinite(r.frequencyRange.max) ? r.frequencyRange.max : null } : null,
       assumptions: assumptions(r),
     },
     grid: { frequencies: r.frequencies, conductivities: r.conductivities, layout: "row-major: index i * frequencies.length + j is conductivity i, frequency j" },
@@ -172,10 +211,14 @@ export function planWindows(req: WindowsRequest): WindowsResult {
         { populationId: r.target.id, positive: round4(g.targetPositive), negative: round4(g.targetNegative) },
         { populationId: r.other.id, positive: round4(g.otherPositive), negative: round4(g.otherNegative) },
       ],
+      reK: means.map((m) => ({ populationId: m.id, values: sig4(meanCellGrid(m.particle, r.frequencies, r.conductivities, r.mediumPermittivity)) })),
+      blockers: Array.from(g.blockers),
+      blockerCodes: [...BLOCKERS],
     },
-    crossovers: ctx.crossovers,
+    crossovers: ctx.crossovers.map((x, k) => ({ ...x, branches: crossoverBranches(means[k].particle, r.frequencies, r.conductivities, r.mediumPermittivity) })),
+    diagnosis,
     windows: all.slice(0, r.topN),
     windowCount: all.length,
-    warnings: globalWarnings(r, g, all),
+    warnings: globalWarnings(r, diagnosis, all),
   };
 }

@@ -51,7 +51,12 @@ const userGamma = z.strictObject({
   kind: z.literal("user"),
   gamma: quantity({ what: "field-gradient factor Γ (m⁻³)", range: "greater than zero and at most 1e20 m⁻³", min: 0, max: 1e20, exclusiveMin: true }),
   electrodeGap: quantity({ what: "electrode gap (m)", range: "between 1 µm and 1 mm", min: 1e-6, max: 1e-3 }),
+  /** Height above the electrodes where Γ applies (m); used for the flow speed a captured cell must resist. */
+  height: quantity({ what: "height above the electrodes (m)", range: "between 0 and 1 mm", min: 0, max: 1e-3 }).optional(),
 });
+
+const conductivityOfWall = (what: string) =>
+  quantity({ what: `${what} thermal conductivity (W/(m·K))`, range: "between 0.01 and 500 W/(m·K) (PDMS ≈ 0.15, glass ≈ 1.05, silicon ≈ 150)", min: 0.01, max: 500 });
 
 /** Request schema of `planWindows`. */
 export const windowsRequestSchema = z
@@ -86,6 +91,22 @@ export const windowsRequestSchema = z
       flowSpeed: quantity({ what: "mean flow speed (m/s)", range: "between 0 and 1 m/s", min: 0, max: 1 }).optional(),
       electrodeArrayLength: quantity({ what: "electrode array length along the flow (m)", range: "between 1 µm and 0.1 m", min: 1e-6, max: 0.1 }).optional(),
       targetDepSpeed: quantity({ what: "target DEP speed (m/s)", range: "greater than zero and at most 0.01 m/s", min: 0, max: 0.01, exclusiveMin: true }).optional(),
+      /** The generator's frequency range, Hz: grid points outside it are refused (blocker "frequency-range"). */
+      generatorMinFrequency: quantity({ what: "generator lowest frequency (Hz)", range: "from 1 Hz to 10 GHz", min: LIMITS.minFrequency, max: LIMITS.maxFrequency }).optional(),
+      generatorMaxFrequency: quantity({ what: "generator highest frequency (Hz)", range: "from 1 Hz to 10 GHz", min: LIMITS.minFrequency, max: LIMITS.maxFrequency }).optional(),
+      /** Electrode array area for the array-heating estimate, m² (default 1 mm²). */
+      electrodeArrayArea: quantity({ what: "electrode array area (m²)", range: "between 1e-9 and 1e-2 m² (0.001–10 000 mm²)", min: 1e-9, max: 1e-2 }).optional(),
+      /** Thermal conductivity of the substrate under the electrodes and of the lid, W/(m·K) (defaults glass and PDMS). */
+      substrateThermalConductivity: conductivityOfWall("substrate").optional(),
+      lidThermalConductivity: conductivityOfWall("lid").optional(),
+    }).superRefine((d, ctx) => {
+      const h = d.geometry.height;
+      if (h !== undefined && !(h < d.channelHeight)) {
+        ctx.addIssue({ code: "custom", path: ["geometry", "height"], message: `height above the electrodes (m) must lie inside the channel, from 0 up to below the channel height ${describeValue(d.channelHeight)} m (got ${describeValue(h)})` });
+      }
+      if (d.generatorMinFrequency !== undefined && d.generatorMaxFrequency !== undefined && !(d.generatorMaxFrequency > d.generatorMinFrequency)) {
+        ctx.addIssue({ code: "custom", path: ["generatorMaxFrequency"], message: `generator highest frequency (${describeValue(d.generatorMaxFrequency)} Hz) must be above its lowest (${describeValue(d.generatorMinFrequency)} Hz)` });
+      }
     }),
     constraints: z
       .object({

@@ -5,7 +5,7 @@
  */
 import { acElectroosmosis, severityAgainstLimit, vrmsToVpp } from "@/lib/dielectric";
 import type { Constraints } from "./constraints";
-import { LIMITED_BY, type GridResult, type LimitedBy } from "./evaluate";
+import { LIMITED_BY, type GridResult, type HeatingModel, type LimitedBy } from "./evaluate";
 import type { PlannerWarning } from "./warnings";
 
 /** A contiguous feasible run on the grid. */
@@ -33,6 +33,47 @@ export function findRuns(g: GridResult): Run[] {
     }
   }
   return runs;
+}
+
+/** A connected feasible region of the grid (4-neighbour): its runs, one per conductivity row it spans. */
+export interface Region {
+  runs: Run[];
+  points: number;
+}
+
+/**
+ * Connected feasible regions: feasible points joined to their neighbours along frequency and along conductivity, so
+ * the runs of adjacent rows that overlap make one region. Regions come in order of their first point.
+ * @example findRegions(grid).map((r) => r.runs.length) // → [7, 1]
+ */
+export function findRegions(g: GridResult): Region[] {
+  const regions: Region[] = [];
+  const runs = findRuns(g);
+  const byRow: Run[][] = Array.from({ length: g.nc }, () => []);
+  runs.forEach((r) => byRow[r.row].push(r));
+  const runId = new Map<Run, number>();
+  runs.forEach((r, k) => runId.set(r, k));
+  const parent = runs.map((_, k) => k);
+  const find = (k: number): number => (parent[k] === k ? k : (parent[k] = find(parent[k])));
+  for (let i = 1; i < g.nc; i++) {
+    for (const a of byRow[i - 1]) {
+      for (const b of byRow[i]) {
+        if (a.first <= b.last && b.first <= a.last) parent[find(runId.get(a)!)] = find(runId.get(b)!);
+      }
+    }
+  }
+  const index = new Map<number, number>();
+  for (const r of runs) {
+    const root = find(runId.get(r)!);
+    if (!index.has(root)) {
+      index.set(root, regions.length);
+      regions.push({ runs: [], points: 0 });
+    }
+    const reg = regions[index.get(root)!];
+    reg.runs.push(r);
+    reg.points += r.last - r.first + 1;
+  }
+  return regions;
 }
 
 /** One part of a window's score. */
@@ -63,7 +104,12 @@ export interface OperatingWindow {
   purity: number;
   contamination: number;
   fractions: { populationId: string; positive: number; negative: number; between: number }[];
+  /** The temperature rise checked against the limit, K (the array estimate for an electrode array). */
   temperatureRise: number;
+  /** Both heating estimates at the window's drive, K. */
+  heating: { isolatedPair: number; array: number | null; checked: "isolated" | "array" };
+  /** The feasible region this window stands for: the conductivity rows it spans and its size on the grid. */
+  region: { conductivityMin: number; conductivityMax: number; rows: number; points: number; frequencyMin: number; frequencyMax: number };
   electrothermalRatio: number | null;
   transmembranePotential: number | null;
   acElectroosmosis: "unlikely" | "possible" | "likely";
@@ -93,6 +139,10 @@ export interface WindowContext {
   maxVoltageRms: number;
   /** Crossovers (Hz) of each population's mean cell at each conductivity row. */
   crossovers: { populationId: string; byConductivity: number[][] }[];
+  /** Heating estimates per σV². */
+  heating: HeatingModel;
+  /** Capture against a flow: the local flow speed the captured cells must resist, m/s, or null. */
+  holdingSpeed: number | null;
 }
 
 /**
@@ -168,7 +218,17 @@ export function buildWindow(g: GridResult, ctx: WindowContext, run: Run): Operat
     const sev = severityAgainstLimit(value, limit);
     if (sev !== "ok") warnings.push({ code, severity: sev, message: `${what} is ${value.toPrecision(2)}, ${((value / limit) * 100).toFixed(0)} % of the limit ${limit}.`, value, limit, advice });
   };
-  graded("temperature-rise", dT, c.maxTemperatureRise, "Predicted Joule temperature rise (K)", "Lower the conductivity or the voltage, or cool the chip.");
+  graded("temperature-rise", dT, c.maxTemperatureRise, ctx.heating.checked === "array" ? "Predicted Joule temperature rise over the electrode array (K, array estimate)" : "Predicted Joule temperature rise (K)", "Lower the conductivity or the voltage, or cool the chip.");
+  if (ctx.holdingSpeed !== null && limitedBy !== "speed") {
+    warnings.push({
+      code: "holding",
+      severity: "warning",
+      message: `At ${vrmsToVpp(v).toFixed(1)} Vpp not every captured cell is held: holding against the local flow (${(ctx.holdingSpeed * 1e6).toPrecision(3)} µm/s at the evaluation height) needs ${Number.isFinite(needed) ? `${vrmsToVpp(needed).toFixed(1)} Vpp` : "more than any voltage gives"}; the recovery shown counts only the cells that are held.`,
+      value: v,
+      limit: Number.isFinite(needed) ? needed : null,
+      advice: "Slow the flow (the DEP speed needed equals the local flow speed), trap lower in the channel, or use a smaller electrode gap.",
+    });
+  }
   graded("electrothermal-flow", et, c.maxElectrothermalRatio, "Electrothermal flow speed relative to the DEP speed (order of magnitude)", "Lower the conductivity or voltage; watch for circulating flow above the electrodes.");
   graded("transmembrane-potential", tmp, c.maxTransmembranePotential, "Induced transmembrane potential on the target cells (V, peak)", "Raise the frequency or lower the voltage to protect the membranes.");
   if (aceo.regime !== "unlikely") {
@@ -201,6 +261,8 @@ export function buildWindow(g: GridResult, ctx: WindowContext, run: Run): Operat
       { populationId: ctx.otherId, ...frac(g.otherPositive[idx], g.otherNegative[idx]) },
     ],
     temperatureRise: dT,
+    heating: { isolatedPair: ctx.heating.isolated * sigma * v * v, array: ctx.heating.array === null ? null : ctx.heating.array * sigma * v * v, checked: ctx.heating.checked },
+    region: { conductivityMin: sigma, conductivityMax: sigma, rows: 1, points: run.last - run.first + 1, frequencyMin: f[run.first], frequencyMax: f[run.last] },
     electrothermalRatio: et,
     transmembranePotential: tmp,
     acElectroosmosis: aceo.regime,
@@ -212,11 +274,26 @@ export function buildWindow(g: GridResult, ctx: WindowContext, run: Run): Operat
 }
 
 /**
- * All windows ranked by score (ties: lower conductivity, then lower frequency), ranks from 1.
+ * One window per connected feasible region, ranked by score (ties: lower conductivity, then lower frequency), ranks
+ * from 1. Adjacent rows of one region are not separate windows: the region's best-scoring row gives the operating
+ * point and band, and the region's conductivity span is reported with it.
  * @example rankWindows(grid, ctx).slice(0, 10)
  */
 export function rankWindows(g: GridResult, ctx: WindowContext): OperatingWindow[] {
-  const all = findRuns(g).map((r) => buildWindow(g, ctx, r));
+  const all = findRegions(g).map((reg) => {
+    const candidates = reg.runs.map((r) => buildWindow(g, ctx, r));
+    const best = candidates.reduce((a, b) => (b.score > a.score || (b.score === a.score && b.conductivity < a.conductivity) ? b : a));
+    const rows = reg.runs.map((r) => r.row);
+    best.region = {
+      conductivityMin: ctx.conductivities[Math.min(...rows)],
+      conductivityMax: ctx.conductivities[Math.max(...rows)],
+      rows: new Set(rows).size,
+      points: reg.points,
+      frequencyMin: ctx.frequencies[Math.min(...reg.runs.map((r) => r.first))],
+      frequencyMax: ctx.frequencies[Math.max(...reg.runs.map((r) => r.last))],
+    };
+    return best;
+  });
   all.sort((a, b) => b.score - a.score || a.conductivity - b.conductivity || a.bandStart - b.bandStart);
   all.forEach((w, k) => (w.rank = k + 1));
   return all;

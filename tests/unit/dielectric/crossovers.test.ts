@@ -83,4 +83,34 @@ describe("crossover frequencies", () => {
     expect(all).toHaveLength(2);
     expect(low).toEqual([all[0]]);
   });
+
+  it("finds a close pair of crossovers lying within 2 % of either end of the search range, and nothing outside it (common practice, no source)", () => {
+    // The merging pair of the cell above (see the close-pair test): at σm just below the merge the two roots are far
+    // closer than one bracketing step. Put each end of the search range 0.2 % beyond the pair, so that without points
+    // past the edge the pair would sit inside the first (or last) bracketing interval with no grid point between.
+    const has = (sm: number) => crossoverFrequencies(compileParticle(cell()), { permittivity: 78, conductivity: sm }).length === 2;
+    let lo = 0.1;
+    let hi = 10;
+    for (let i = 0; i < 60; i++) {
+      const mid = Math.sqrt(lo * hi);
+      if (has(mid)) lo = mid;
+      else hi = mid;
+    }
+    const sm = lo * (1 - 1e-7);
+    const pair = crossoverFrequencies(compileParticle(cell()), { permittivity: 78, conductivity: sm });
+    expect(pair).toHaveLength(2);
+    const medium = { permittivity: 78, conductivity: sm };
+    const nearStart = crossoverFrequencies(compileParticle(cell()), medium, { start: pair[0] / 1.002, stop: pair[0] * 1000 });
+    expect(nearStart.map((x) => x / pair[0])).toEqual([expect.closeTo(1, 9), expect.closeTo(pair[1] / pair[0], 9)]);
+    const nearStop = crossoverFrequencies(compileParticle(cell()), medium, { start: pair[1] / 1000, stop: pair[1] * 1.002 });
+    expect(nearStop).toHaveLength(2);
+    expect(nearStop[1] / pair[1]).toBeCloseTo(1, 9);
+    // Roots past the edge are not reported: a range ending between the two roots keeps only the first.
+    const between = Math.sqrt(pair[0] * pair[1]);
+    const cut = crossoverFrequencies(compileParticle(cell()), medium, { start: pair[0] / 1000, stop: between });
+    expect(cut).toHaveLength(1);
+    expect(cut[0] / pair[0]).toBeCloseTo(1, 9);
+    // The brute-force scan agrees there are exactly two sign changes inside the near-start range.
+    expect(bruteCount(cell(), sm, pair[0] / 1.002, pair[0] * 1.05, 200_000)).toBe(2);
+  });
 });
