@@ -3,6 +3,7 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import { divergingHex, divergingLut, lutIndex } from "@/lib/charts/diverging-scale";
 import { decadeTicks, formatConductivity, formatFrequency, sig } from "@/lib/charts/format";
+import { layoutLabels, textWidth } from "@/lib/charts/label-layout";
 
 /** A window drawn on the map: its conductivity row and band. */
 export interface MapWindow {
@@ -10,6 +11,8 @@ export interface MapWindow {
   conductivity: number;
   bandStart: number;
   bandStop: number;
+  /** The feasible region the window stands for (conductivity S/m and frequency Hz extents). */
+  region?: { conductivityMin: number; conductivityMax: number; frequencyMin: number; frequencyMax: number };
 }
 
 /** What the heat map shows (row-major values: index i·nf + j is conductivity i, frequency j). */
@@ -20,13 +23,17 @@ export interface HeatmapData {
   recovery: number[];
   purity: number[];
   feasible: number[];
+  /** Re[K] of the target's mean cell at each point (its sign is the side of the crossover lines). */
+  reK?: number[];
+  /** The limits refusing each point, as names ("" = none). */
+  blockers?: string[];
   crossovers: { key: "target" | "other"; label: string; lines: [number, number][][] }[];
   windows: MapWindow[];
 }
 
-const W = 720;
-const H = 360;
-const PAD = { left: 78, right: 16, top: 14, bottom: 46 };
+const W = 960;
+const H = 460;
+const PAD = { left: 84, right: 40, top: 30, bottom: 50 };
 const LUT_SIZE = 257;
 
 /**
@@ -107,15 +114,39 @@ export function SweepHeatmap({ data, marker, bufferConductivity, onPick }: { dat
       ctx.setLineDash([]);
     }
     const rowHalf = single ? 0.12 : 0.5 * (Math.log10(c[c.length - 1]) - Math.log10(c[0])) / Math.max(1, c.length - 1);
-    for (const w of data.windows) {
-      const x0 = lx(w.bandStart), x1 = lx(w.bandStop);
-      const yTop = ly(w.conductivity * 10 ** rowHalf), yBot = ly(w.conductivity / 10 ** rowHalf);
-      ctx.strokeStyle = "#ffffff"; ctx.lineWidth = 4; ctx.strokeRect(x0, yTop, x1 - x0, yBot - yTop);
-      ctx.strokeStyle = "#111111"; ctx.lineWidth = 2; ctx.strokeRect(x0, yTop, x1 - x0, yBot - yTop);
-      ctx.fillStyle = "#111111"; ctx.textAlign = "left"; ctx.font = "bold 11px 'DejaVu Sans', sans-serif";
-      ctx.fillText(`#${w.rank}`, x0 + 3, yTop - 3);
-      ctx.font = "11px 'DejaVu Sans', sans-serif";
+    const clampX = (x: number) => Math.max(PAD.left, Math.min(W - PAD.right, x));
+    const clampY = (y: number) => Math.max(PAD.top, Math.min(H - PAD.bottom, y));
+    const boxes = data.windows.map((w) => {
+      const r = w.region ?? { conductivityMin: w.conductivity, conductivityMax: w.conductivity, frequencyMin: w.bandStart, frequencyMax: w.bandStop };
+      return {
+        w,
+        region: { x0: clampX(lx(r.frequencyMin)), x1: clampX(lx(r.frequencyMax)), y0: clampY(ly(r.conductivityMax * 10 ** rowHalf)), y1: clampY(ly(r.conductivityMin / 10 ** rowHalf)) },
+        band: { x0: clampX(lx(w.bandStart)), x1: clampX(lx(w.bandStop)), y0: clampY(ly(w.conductivity * 10 ** rowHalf)), y1: clampY(ly(w.conductivity / 10 ** rowHalf)) },
+      };
+    });
+    for (const b of boxes) {
+      const { x0, x1, y0, y1 } = b.region;
+      ctx.setLineDash([4, 3]); ctx.strokeStyle = "#ffffff"; ctx.lineWidth = 3; ctx.strokeRect(x0, y0, x1 - x0, y1 - y0);
+      ctx.strokeStyle = "#111111"; ctx.lineWidth = 1.2; ctx.strokeRect(x0, y0, x1 - x0, y1 - y0);
+      ctx.setLineDash([]);
+      const band = b.band;
+      ctx.strokeStyle = "#ffffff"; ctx.lineWidth = 4; ctx.strokeRect(band.x0, band.y0, band.x1 - band.x0, band.y1 - band.y0);
+      ctx.strokeStyle = "#111111"; ctx.lineWidth = 2; ctx.strokeRect(band.x0, band.y0, band.x1 - band.x0, band.y1 - band.y0);
     }
+    // Rank labels in the strip above the plot, stacked so that none overlaps another or leaves the canvas.
+    ctx.font = "bold 11px 'DejaVu Sans', sans-serif";
+    const texts = boxes.map((b) => `#${b.w.rank}`);
+    const place = layoutLabels(boxes.map((b, k) => ({ x: (b.band.x0 + b.band.x1) / 2, width: textWidth(texts[k], 11) + 6 })), { left: PAD.left, right: W - PAD.right, lines: 2, gap: 2 });
+    boxes.forEach((b, k) => {
+      const p = place[k];
+      if (p.hidden) return;
+      const ty = PAD.top - 4 - p.line * 12;
+      ctx.strokeStyle = "rgba(17,17,17,0.5)"; ctx.lineWidth = 1;
+      ctx.beginPath(); ctx.moveTo(p.left + (textWidth(texts[k], 11) + 6) / 2, ty + 2); ctx.lineTo((b.band.x0 + b.band.x1) / 2, b.band.y0); ctx.stroke();
+      ctx.fillStyle = "#111111"; ctx.textAlign = "left";
+      ctx.fillText(texts[k], p.left + 3, ty);
+    });
+    ctx.font = "11px 'DejaVu Sans', sans-serif";
     if (marker) {
       const mx = lx(marker.frequency), my = ly(marker.conductivity);
       ctx.strokeStyle = "#9b1c1c"; ctx.lineWidth = 2.5;
@@ -138,7 +169,8 @@ export function SweepHeatmap({ data, marker, bufferConductivity, onPick }: { dat
   function onClick() {
     if (!hover || !onPick) return;
     const fHz = f[hover.j], s = c[hover.i];
-    const hit = data.windows.find((w) => Math.abs(Math.log10(w.conductivity / s)) < 1e-6 && fHz >= w.bandStart * 0.999 && fHz <= w.bandStop * 1.001);
+    const hit = data.windows.find((w) => Math.abs(Math.log10(w.conductivity / s)) < 1e-6 && fHz >= w.bandStart * 0.999 && fHz <= w.bandStop * 1.001)
+      ?? data.windows.find((w) => w.region && s >= w.region.conductivityMin * 0.999 && s <= w.region.conductivityMax * 1.001 && fHz >= w.region.frequencyMin * 0.999 && fHz <= w.region.frequencyMax * 1.001 && data.feasible[hover.i * f.length + hover.j] === 1);
     if (hit) onPick(hit.rank);
   }
 
@@ -157,7 +189,7 @@ export function SweepHeatmap({ data, marker, bufferConductivity, onPick }: { dat
       />
       <p className="min-h-5 text-xs text-ink-soft" aria-live="off" data-testid="heatmap-readout">
         {hover && k >= 0
-          ? `${formatFrequency(f[hover.j])}, ${formatConductivity(c[hover.i], 3, true)}: recovery ${sig(data.recovery[k] * 100, 3)} %, purity ${sig(data.purity[k] * 100, 3)} %, target moves by ${data.values[k] >= 0 ? "positive" : "negative"} DEP, ${data.feasible[k] ? "meets every limit" : "fails a limit or the separation threshold"}.`
+          ? `${formatFrequency(f[hover.j])}, ${formatConductivity(c[hover.i], 3, true)}: recovery ${sig(data.recovery[k] * 100, 3)} %, purity ${sig(data.purity[k] * 100, 3)} %, ${data.reK ? `target's mean cell Re[K] ${sig(data.reK[k], 2)} (${data.reK[k] >= 0 ? "positive" : "negative"} DEP)` : `target moves by ${data.values[k] >= 0 ? "positive" : "negative"} DEP`}; ${data.feasible[k] ? "meets every limit" : data.blockers?.[k] ? `refused by: ${data.blockers[k]}` : "fails a limit or the separation threshold"}.`
           : "Point at the map to read the values there."}
       </p>
       <figcaption className="mt-2 space-y-1 text-xs text-ink-soft">
@@ -174,7 +206,8 @@ export function SweepHeatmap({ data, marker, bufferConductivity, onPick }: { dat
               crossover curve of {x.label}
             </li>
           ))}
-          <li>▭ black outline: operating window with its rank</li>
+          <li>▭ solid outline: a window&apos;s band at its operating conductivity, labelled with its rank above the map</li>
+          <li>┄ dashed outline: the whole feasible region that window stands for</li>
           <li>⊕ red: selected operating point</li>
           {bufferConductivity !== null && <li>dotted grey line: your buffer&apos;s conductivity</li>}
         </ul>

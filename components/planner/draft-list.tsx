@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { ConfirmSubmit } from "@/components/forms/confirm-submit";
 import { discardDraftAction } from "@/lib/planner-wizard/actions";
 import { STEPS, type StepSlug } from "@/lib/planner-wizard/steps";
 
@@ -20,22 +21,22 @@ export function DraftList({ drafts }: { drafts: DraftSummary[] }) {
   return (
     <table>
       <thead>
-        <tr><th scope="col">Plan</th><th scope="col">Steps done</th><th scope="col">Resume at</th><th scope="col">Last change</th><th scope="col"><span className="sr-only">Actions</span></th></tr>
+        <tr><th scope="col">Plan</th><th scope="col">Progress</th><th scope="col">Resume at</th><th scope="col">Last change</th><th scope="col"><span className="sr-only">Actions</span></th></tr>
       </thead>
       <tbody>
         {drafts.map((d) => (
           <tr key={d.id} data-testid="planner-draft-row">
             <td>
               <Link href={`/planner/${d.id}/${d.currentStep}`}>{d.title}</Link>
-              {d.savedProtocolId !== null && <p className="hint">Saved as a protocol draft — <Link href="/protocols">see protocols</Link></p>}
+              {d.savedProtocolId !== null && <p className="hint">Saved to a protocol — <Link href={`/protocols/${d.savedProtocolId}`}>see its versions and their state</Link></p>}
             </td>
-            <td>{d.done.length} of {STEPS.length - 1}</td>
+            <td>{Math.min(d.done.length, STEPS.length)} of {STEPS.length} steps done</td>
             <td>{stepTitle(d.currentStep)}</td>
             <td><time dateTime={d.updatedAt}>{new Date(d.updatedAt).toISOString().slice(0, 16).replace("T", " ")} UTC</time></td>
             <td className="text-right">
               <form action={discardDraftAction}>
                 <input type="hidden" name="draftId" value={d.id} />
-                <button className="btn-quiet text-xs" type="submit" aria-label={`Discard plan ${d.title}`}>Discard</button>
+                <ConfirmSubmit className="btn-quiet text-xs" label={`Discard plan ${d.title}`} question={`Discard the plan "${d.title}"? Its inputs and chosen window are deleted; protocols already saved from it stay.`}>Discard</ConfirmSubmit>
               </form>
             </td>
           </tr>

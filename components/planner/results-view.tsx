@@ -3,13 +3,17 @@
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useMemo, useState } from "react";
+import { useMemo, useRef, useState } from "react";
 import type { SpectraResult } from "@/lib/dielectric";
 import type { SensitivityResult, WindowsRequest, WindowsResult } from "@/lib/planner";
 import type { PopulationSpec } from "@/lib/populations/spec";
 import { formatConductivity, formatFrequency, sci, sig } from "@/lib/charts/format";
 import { postJson } from "@/lib/planner-wizard/api-client";
-import { crossoverPolylines, parameterLabel, signedSeparation, tornadoBars } from "@/lib/planner-wizard/results-data";
+import { blockerNames, parameterLabel, signedSeparation, tornadoBars } from "@/lib/planner-wizard/results-data";
+import { heatmapSvg } from "@/lib/charts/heatmap-svg";
+import { spectraCsv, sweepMapCsv, windowsCsv } from "@/lib/exports/planner-csv";
+import { ChartDownloads, TextDownload } from "@/components/charts/chart-downloads";
+import { BlockerSummary } from "./blocker-summary";
 import { spectraBody, toSeries } from "@/lib/planner-wizard/spectra-request";
 import { SpectraChart, type SpectrumLine } from "@/components/charts/spectra-chart";
 import { SweepHeatmap, type HeatmapData } from "@/components/charts/sweep-heatmap";
@@ -29,6 +33,8 @@ export interface ResultsProps {
   names: { target: string; other: string };
   specs: { target: PopulationSpec; other: PopulationSpec };
   initialRank: number | null;
+  /** The window saved with the draft (conductivity S/m, band Hz), kept selected only if a recomputed result still has it. */
+  initialWindow: { conductivity: number; bandStart: number; bandStop: number } | null;
   bufferConductivity: number | null;
   permittivity: number;
 }
@@ -36,11 +42,16 @@ export interface ResultsProps {
 /** Step 5: spectra, sweep map, ranked windows, warnings, sensitivity and the model's assumptions and cautions. */
 export function ResultsView(p: ResultsProps) {
   const router = useRouter();
-  const [rank, setRank] = useState<number | null>(p.initialRank);
   const windowsQ = useQuery({ queryKey: ["windows", p.request], queryFn: ({ signal }) => postJson<WindowsResult>("/api/v1/windows", p.request, signal), placeholderData: keepPreviousData, staleTime: Infinity });
   const mapQ = useQuery({ queryKey: ["windows-map", p.mapRequest], queryFn: ({ signal }) => postJson<WindowsResult>("/api/v1/windows", p.mapRequest, signal), enabled: p.mapRequest !== null, placeholderData: keepPreviousData, staleTime: Infinity });
   const result = windowsQ.data;
   const windows = useMemo(() => result?.windows ?? [], [result]);
+  // A selection belongs to the result it was made on: a recomputed result starts again from window #1, unless the
+  // saved window (same conductivity and band) is still among the new windows.
+  const [choice, setChoice] = useState<{ result: WindowsResult | undefined; rank: number | null }>({ result: undefined, rank: null });
+  const savedRank = p.initialWindow ? windows.find((w) => w.conductivity === p.initialWindow!.conductivity && w.bandStart === p.initialWindow!.bandStart && w.bandStop === p.initialWindow!.bandStop)?.rank ?? null : null;
+  const rank = choice.result === result ? choice.rank : savedRank;
+  const setRank = (r: number) => setChoice({ result, rank: r });
   const selected = windows.find((w) => w.rank === rank) ?? windows[0] ?? null;
   const selRank = selected?.rank ?? null;
   const { state, saveNow } = useAutosave(p.draftId, "results", { rank: selRank, windowIndex: selected ? windows.indexOf(selected) : null, window: selected ? { conductivity: selected.conductivity, bandStart: selected.bandStart, bandStop: selected.bandStop } : null });
@@ -51,11 +62,15 @@ export function ResultsView(p: ResultsProps) {
     queryFn: async ({ signal }) => {
       const medium = { conductivity: sigma, permittivity: p.permittivity };
       const lines: SpectrumLine[] = [];
+      const raws: SpectraResult[] = [];
       for (const key of ["target", "other"] as const) {
         const r = await postJson<SpectraResult>("/api/v1/spectra", spectraBody(p.specs[key], key, key === "target" ? 0 : 1, medium), signal);
+        raws.push(r);
         lines.push({ key, label: `${key === "target" ? "Target" : "To remove"}: ${p.names[key]}`, series: toSeries(r) });
       }
-      return lines;
+      // The mean cell of each population (the last particle of each request) for the CSV download.
+      const raw: SpectraResult = { ...raws[0], particles: raws.map((r, k) => ({ ...r.particles[r.particles.length - 1], id: k === 0 ? "target" : "other" })) };
+      return { lines, raw };
     },
     placeholderData: keepPreviousData,
   });
@@ -78,8 +93,10 @@ export function ResultsView(p: ResultsProps) {
       recovery: mapSource.map.recovery,
       purity: mapSource.map.purity,
       feasible: mapSource.map.feasible,
-      crossovers: mapSource.crossovers.map((x) => ({ key: x.populationId === "target" ? "target" : "other", label: names[x.populationId] ?? x.populationId, lines: crossoverPolylines(x.byConductivity, mapSource.grid.conductivities) })),
-      windows: windows.map((w) => ({ rank: w.rank, conductivity: w.conductivity, bandStart: w.bandStart, bandStop: w.bandStop })),
+      reK: mapSource.map.reK?.find((r) => r.populationId === mapSource.model.targetId)?.values,
+      blockers: blockerNames(mapSource),
+      crossovers: mapSource.crossovers.map((x) => ({ key: x.populationId === "target" ? "target" : "other", label: names[x.populationId] ?? x.populationId, lines: x.branches ?? [] })),
+      windows: windows.map((w) => ({ rank: w.rank, conductivity: w.conductivity, bandStart: w.bandStart, bandStop: w.bandStop, region: w.region })),
     };
   }, [mapSource, windows, p.names]);
 
@@ -88,6 +105,9 @@ export function ResultsView(p: ResultsProps) {
   const slowSens = useSlow(sensQ.isFetching, 200);
   const marker = selected ? selected.operatingPoint : null;
   const bars = sensQ.data ? tornadoBars(sensQ.data, p.names) : [];
+  const mapBox = useRef<HTMLDivElement>(null);
+  const spectraBox = useRef<HTMLDivElement>(null);
+  const tornadoBox = useRef<HTMLDivElement>(null);
 
   return (
     <div className="space-y-6">
@@ -107,17 +127,45 @@ export function ResultsView(p: ResultsProps) {
         <div className="mt-2"><SaveStatus state={state} /></div>
       </section>
 
-      <div className="grid gap-6 2xl:grid-cols-2">
-        <section className="card" aria-labelledby="spectra-heading">
-          <h2 id="spectra-heading">Spectra at {formatConductivity(sigma, 3, true)}</h2>
-          <ComputeState slow={slowSpectra} stale={spectraQ.isFetching && Boolean(spectraQ.data)} error={spectraQ.error ? (spectraQ.error as Error).message : null} />
-          {spectraQ.data && <div className={spectraQ.isFetching ? "opacity-60" : ""}><SpectraChart lines={spectraQ.data} marker={marker?.frequency ?? null} title={`Re[K] of both populations at ${formatConductivity(sigma)}`} /></div>}
+      {result && (
+        <section className="card" aria-labelledby="blockers-heading">
+          <h2 id="blockers-heading">What limits the windows</h2>
+          <BlockerSummary diagnosis={result.diagnosis} />
         </section>
-        <section className="card" aria-labelledby="map-heading">
+      )}
+
+      <section className="card" aria-labelledby="map-heading">
+        <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
           <h2 id="map-heading">Sweep map: frequency × medium conductivity</h2>
+          {heat && <ChartDownloads name="sweep-map" label="Download the map" svg={() => heatmapSvg({ ...heat, title: "Sweep map: signed recovery × purity of the target" })} canvas={() => mapBox.current?.querySelector("canvas") ?? null} />}
+        </div>
+        <div ref={mapBox}>
           {heat ? <div className={windowsQ.isFetching || mapQ.isFetching ? "opacity-60" : ""}><SweepHeatmap data={heat} marker={marker} bufferConductivity={p.bufferConductivity} onPick={setRank} /></div> : <p className="text-sm text-ink-muted">Computing the map…</p>}
+        </div>
+      </section>
+
+      <section className="card" aria-labelledby="spectra-heading">
+        <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
+          <h2 id="spectra-heading">Spectra at {formatConductivity(sigma, 3, true)}</h2>
+          {spectraQ.data && <ChartDownloads name="spectra" label="Download the chart" container={spectraBox} />}
+        </div>
+        <ComputeState slow={slowSpectra} stale={spectraQ.isFetching && Boolean(spectraQ.data)} error={spectraQ.error ? (spectraQ.error as Error).message : null} />
+        <div ref={spectraBox}>
+          {spectraQ.data && <div className={spectraQ.isFetching ? "opacity-60" : ""}><SpectraChart lines={spectraQ.data.lines} marker={marker?.frequency ?? null} title={`Re[K] of both populations at ${formatConductivity(sigma)}`} /></div>}
+        </div>
+      </section>
+
+      {result && (
+        <section className="card space-y-2" aria-labelledby="downloads-heading" data-testid="downloads">
+          <h2 id="downloads-heading">Take the results away</h2>
+          <p className="text-sm text-ink-soft">CSV files in SI units with the unit in each column header; the same tables come from the API (POST /api/v1/windows/map.csv, /api/v1/windows/table.csv, /api/v1/spectra.csv).</p>
+          <div className="flex flex-wrap gap-2">
+            {mapSource && <TextDownload name="sievewright-sweep-map.csv" testId="download-map-csv" build={() => sweepMapCsv(mapSource, { target: p.names.target, other: p.names.other })}>Sweep map (CSV, long format)</TextDownload>}
+            <TextDownload name="sievewright-windows.csv" testId="download-windows-csv" build={() => windowsCsv(result)}>Window table (CSV)</TextDownload>
+            {spectraQ.data && <TextDownload name="sievewright-spectra.csv" testId="download-spectra-csv" build={() => spectraCsv(spectraQ.data.raw, { target: p.names.target, other: p.names.other }, sigma)}>Spectra (CSV)</TextDownload>}
+          </div>
         </section>
-      </div>
+      )}
 
       {selected && (
         <section className="card space-y-3" aria-labelledby="selected-heading" data-testid="selected-window">
@@ -126,7 +174,8 @@ export function ResultsView(p: ResultsProps) {
           <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-4">
             <div><dt className="text-ink-muted">Drive</dt><dd>{sig(selected.voltage.vpp, 3)} Vpp ({sig(selected.voltage.rms, 3)} Vrms), sine</dd></div>
             <div><dt className="text-ink-muted">Predicted recovery / purity</dt><dd>{sig(selected.recovery * 100, 3)} % / {sig(selected.purity * 100, 3)} %</dd></div>
-            <div><dt className="text-ink-muted">Joule ΔT</dt><dd>{sig(selected.temperatureRise, 2)} K</dd></div>
+            <div><dt className="text-ink-muted">Joule ΔT (checked against the limit)</dt><dd data-testid="heating-estimates">{selected.heating ? <>{sig(selected.heating.array ?? selected.heating.isolatedPair, 2)} K {selected.heating.array !== null ? "electrode array" : "isolated pair"}{selected.heating.array !== null && <span className="block text-xs text-ink-muted">isolated-pair estimate {sig(selected.heating.isolatedPair, 2)} K</span>}</> : `${sig(selected.temperatureRise, 2)} K`}</dd></div>
+            {selected.region && selected.region.rows > 1 && <div><dt className="text-ink-muted">Region</dt><dd>{formatConductivity(selected.region.conductivityMin)} – {formatConductivity(selected.region.conductivityMax)}, {formatFrequency(selected.region.frequencyMin)} – {formatFrequency(selected.region.frequencyMax)}</dd></div>}
             <div><dt className="text-ink-muted">Transmembrane potential</dt><dd>{selected.transmembranePotential === null ? "—" : `${sig(selected.transmembranePotential, 2)} V`}</dd></div>
             <div><dt className="text-ink-muted">Electrothermal / DEP speed</dt><dd>{selected.electrothermalRatio === null ? "—" : sci(selected.electrothermalRatio, 2)}</dd></div>
             <div><dt className="text-ink-muted">AC electro-osmosis</dt><dd>{selected.acElectroosmosis}</dd></div>
@@ -141,7 +190,8 @@ export function ResultsView(p: ResultsProps) {
           {sensQ.data && (
             <>
               {sensQ.data.dominant && <p className="text-sm">The window depends most on <strong>{p.names[sensQ.data.dominant.populationId as "target" | "other"] ?? sensQ.data.dominant.populationId}: {parameterLabel(sensQ.data.dominant.parameter)}</strong>{sensQ.data.dominant.lost ? " (a one-SD shift loses the window)" : ` (${sig(sensQ.data.dominant.swingDecades ?? 0, 2)} decades)`}.</p>}
-              <TornadoChart bars={bars} title={`Band-edge shifts of window ${selected.rank} for ±1 SD of each parameter`} />
+              <div className="flex justify-end"><ChartDownloads name="sensitivity" label="Download the chart" container={tornadoBox} /></div>
+              <div ref={tornadoBox}><TornadoChart bars={bars} title={`Band-edge shifts of window ${selected.rank} for ±1 SD of each parameter`} /></div>
               <p className="text-xs text-ink-muted">{sensQ.data.note}</p>
             </>
           )}

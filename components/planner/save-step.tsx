@@ -64,8 +64,9 @@ export function SaveStep({ draftId, initial, protocols, summary }: { draftId: nu
           <legend className="mb-1 text-sm font-medium text-ink-soft">Save as</legend>
           <div className="flex flex-wrap gap-4 text-sm">
             <label className="flex items-center gap-2"><input type="radio" value="new" {...register("destination")} /> A new protocol (version 1)</label>
-            <label className="flex items-center gap-2"><input type="radio" value="existing" {...register("destination")} disabled={protocols.length === 0} /> A new version of an existing protocol</label>
+            <label className="flex items-center gap-2"><input type="radio" value="existing" {...register("destination")} disabled={protocols.length === 0} aria-describedby={protocols.length === 0 ? "save-existing-why" : undefined} /> A new version of an existing protocol</label>
           </div>
+          {protocols.length === 0 && <p id="save-existing-why" className="hint" data-testid="existing-disabled-reason">Not available: no protocol can take a new version now. A new version starts from a protocol whose latest version is approved, superseded or retired; one with a draft, in-review or returned version must finish that version first. Save this plan as a new protocol instead.</p>}
         </fieldset>
         {values.destination === "existing" && (
           <div className="field md:col-span-2">

@@ -1,6 +1,7 @@
 "use client";
 
 import { useState, useTransition } from "react";
+import { formatDateTime } from "@/lib/format/time";
 import { createTokenAction, revokeTokenAction } from "@/lib/tokens/actions";
 
 interface TokenView {
@@ -59,8 +60,8 @@ export function TokenPanel({ tokens }: { tokens: TokenView[] }) {
             <tr key={t.id}>
               <td>{t.label}</td>
               <td><code>{t.prefix}…</code></td>
-              <td>{new Date(t.createdAt).toLocaleString("en-GB", { timeZone: "UTC" })} UTC</td>
-              <td>{t.lastUsedAt ? `${new Date(t.lastUsedAt).toLocaleString("en-GB", { timeZone: "UTC" })} UTC` : "never"}</td>
+              <td>{formatDateTime(new Date(t.createdAt))}</td>
+              <td>{t.lastUsedAt ? formatDateTime(new Date(t.lastUsedAt)) : "never"}</td>
               <td className="text-right">
                 {t.revoked ? <span className="text-xs text-ink-muted">revoked</span> : (
                   <button type="button" className="btn-quiet" disabled={pending} onClick={() => start(async () => {

@@ -2,6 +2,7 @@
  * The OpenAPI 3.1 document of the public JSON API. Request schemas are generated from the engine's zod schemas with
  * zod's `z.toJSONSchema`, so the document cannot drift from what the routes accept.
  */
+import { CSV_PATHS } from "./csv-routes";
 import { z } from "zod";
 import { ENGINE_VERSION } from "@/lib/dielectric";
 import { MAX_JSON_BYTES } from "@/lib/http/body";
@@ -100,6 +101,7 @@ export function buildOpenApiDocument(routes: RouteDoc[] = ROUTE_DOCS) {
     schemas[r.responseName] = r.responseSchema;
     paths[r.path] = { [r.method]: operation(r) };
   }
+  Object.assign(paths, CSV_PATHS);
   return {
     openapi: "3.1.0",
     info: {

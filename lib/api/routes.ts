@@ -86,8 +86,9 @@ export const WINDOWS_RESPONSE_SCHEMA: JsonSchema = {
     plannerVersion: { type: "string" },
     model: described("object", "Which sort design, seed, sample size, constraints, medium, device field approximation and assumptions produced every number."),
     grid: described("object", "frequencies (Hz) and conductivities (S/m) of the map, and its layout."),
-    map: described("object", "Per grid point, row-major by conductivity: separation score, feasible (1/0), recovery, purity, voltage (Vrms) and each population's fractions moving by positive and negative DEP."),
-    crossovers: described("array", "Crossover frequencies (Hz) of each population's mean cell at each conductivity."),
+    map: described("object", "Per grid point, row-major by conductivity: separation score, feasible (1/0), recovery, purity, voltage (Vrms), each population's fractions moving by positive and negative DEP, each population's mean-cell Re[K] (reK), and blockers: a bit mask over blockerCodes naming the limits that refuse the point (0 = feasible)."),
+    crossovers: described("array", "Per population: crossover frequencies (Hz) of the mean cell at each conductivity (byConductivity), and branches: the zero contour of Re[K] on the grid as [frequency Hz, conductivity S/m] polylines, one per crossover branch, for drawing."),
+    diagnosis: described("object", "How many grid points each limit refuses (counts: removed, removedAlone), the best-separating points with the limits refusing them and the change that would admit each (best), and a one-sentence summary."),
     windows: {
       type: "array",
       description: "Ranked windows, best first (at most topN).",

@@ -22,6 +22,7 @@ import {
   utcText,
   voltsText,
 } from "./format";
+import { flowText, heatingText } from "./flow";
 import { scaleRecipe } from "./recipe";
 import { STATE_WORDS, type BenchSheetLayout, type BenchSheetOptions, type BenchSheetSource, type SheetBlock, type SheetSection } from "./types";
 
@@ -186,12 +187,12 @@ function settingsSection(source: BenchSheetSource): SheetBlock[] {
         { label: "Frequency", value: `${frequencyText(selection.frequency)} (operating window ${frequencyText(selection.band.low)} to ${frequencyText(selection.band.high)})` },
         { label: "Amplitude", value: `${voltsText(selection.voltageVpp, "Vpp")} = ${voltsText(selection.voltageVrms, "Vrms")}` },
         { label: "Waveform", value: selection.waveform === "sine" ? "Sine" : selection.waveform },
-        { label: "Flow rate", value: selection.flowRateUlPerMin === null ? "no flow (static chamber)" : `${selection.flowRateUlPerMin} µL/min` },
+        { label: "Flow rate", value: flowText(selection.flowRateUlPerMin, source.content.plan.result) },
         { label: "Operating temperature", value: celsiusText(selection.temperatureC) },
         { label: "Medium conductivity", value: `${conductivityText(selection.conductivity)} as planned` },
         { label: "Device", value: `${device.name ?? device.geometry} (${device.geometry}); never exceed ${voltsText(device.maxVoltageVpp, "Vpp")}` },
         { label: "Sort design", value: sortDesign },
-        { label: "Predicted heating", value: `+${selection.predicted.deltaT.toFixed(1)} K at the electrodes (Joule, model estimate)` },
+        { label: "Predicted heating", value: heatingText(selection.predicted.deltaT, selection.rank, source.content.plan.result) },
       ],
     },
   ];

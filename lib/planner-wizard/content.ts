@@ -8,6 +8,7 @@ import type { DeviceStepValues } from "./device-form";
 import type { LimitsStepValues } from "./limits-form";
 import type { PopulationsStepOutput } from "./population-form";
 import { behaviourText, toProtocolWarning } from "./results-data";
+import { rangeRecipe } from "./range-recipe";
 import type { SaveStepValues } from "./save-form";
 
 /** Everything the protocol content is built from. */
@@ -57,7 +58,7 @@ export function buildContent(src: ContentSources): ProtocolContent {
     buffer: {
       name: buffer.name,
       ...(buffer.libraryRef ? { libraryRef: buffer.libraryRef } : {}),
-      recipe:
+      recipe: buffer.mode === "range" ? rangeRecipe(buffer.sucrosePercentWV, buffer.glucosePercentWV, sigma25) :
         buffer.mode === "recipe" && choice.recipe
           ? {
               sucrosePercentWV: buffer.sucrosePercentWV,

@@ -1,44 +1,33 @@
-import type { OperatingWindow, PlannerWarning, SensitivityResult, WindowsResult } from "@/lib/planner";
+import { BLOCKER_LABELS, type Blocker, type OperatingWindow, type PlannerWarning, type SensitivityResult, type WindowsResult } from "@/lib/planner";
 import type { ProtocolWarning } from "@/lib/protocols/content";
 
 /**
- * Signed separation for the heat map: recovery × purity at each point, positive where the target population moves
- * by positive DEP there and negative where it moves by negative DEP (from the sampled fractions), so colour hue
- * gives the target's direction and depth gives how well the pair separates. Row-major like the planner's grid.
+ * Signed separation for the heat map: recovery × purity at each point, positive where the target's mean cell has
+ * Re[K] > 0 (positive DEP) and negative where Re[K] < 0, so colour hue gives the target's direction and depth gives
+ * how well the pair separates. The sign is the same one the crossover lines (zero contour of the mean cell's Re[K])
+ * divide the map by. Results saved before the mean-cell map existed fall back to the sampled fractions.
  * @example signedSeparation(result)[0] // between −1 and 1
  */
 export function signedSeparation(result: Pick<WindowsResult, "map" | "model">): Float64Array {
   const score = result.map.separationScore;
+  const reK = result.map.reK?.find((r) => r.populationId === result.model.targetId)?.values;
   const target = result.map.fractions.find((f) => f.populationId === result.model.targetId) ?? result.map.fractions[0];
   const out = new Float64Array(score.length);
   for (let k = 0; k < score.length; k++) {
     const s = Number.isFinite(score[k]) ? score[k] : 0;
-    const dir = (target?.positive[k] ?? 0) >= (target?.negative[k] ?? 0) ? 1 : -1;
+    const dir = reK ? (reK[k] >= 0 ? 1 : -1) : (target?.positive[k] ?? 0) >= (target?.negative[k] ?? 0) ? 1 : -1;
     out[k] = dir * Math.max(0, Math.min(1, s));
   }
   return out;
 }
 
 /**
- * Crossover curves as polylines over the conductivity rows: the n-th crossover of each row joined to the n-th of
- * the next; a row without an n-th crossover breaks the line. Points are [frequency Hz, conductivity S/m].
- * @example crossoverPolylines([[1e5], [2e5]], [0.01, 0.02]) // [[[1e5, 0.01], [2e5, 0.02]]]
+ * The limits that refuse each point of the map, as plain names ("" where the point meets every limit).
+ * @example blockerNames(result)[k] // → "AC electro-osmosis limit, minimum purity"
  */
-export function crossoverPolylines(byConductivity: number[][], conductivities: number[]): [number, number][][] {
-  const lines: [number, number][][] = [];
-  const depth = Math.max(0, ...byConductivity.map((r) => r.length));
-  for (let n = 0; n < depth; n++) {
-    let current: [number, number][] = [];
-    byConductivity.forEach((row, i) => {
-      if (row[n] !== undefined) current.push([row[n], conductivities[i]]);
-      else if (current.length) {
-        lines.push(current);
-        current = [];
-      }
-    });
-    if (current.length) lines.push(current);
-  }
-  return lines;
+export function blockerNames(result: Pick<WindowsResult, "map">): string[] {
+  const codes = (result.map.blockerCodes ?? []) as Blocker[];
+  return (result.map.blockers ?? []).map((m) => codes.filter((_, b) => (m & (1 << b)) !== 0).map((b) => BLOCKER_LABELS[b] ?? b).join(", "));
 }
 
 /** One bar pair of the tornado chart: shift of the band (decades) at −1 SD and +1 SD of one parameter. */

@@ -17,7 +17,9 @@ export function resultsSetup(inputs: WizardInputs):
   const fixed = request.medium.conductivity;
   const mapRequest: WindowsRequest | null = fixed === undefined ? null : { ...request, medium: { ...request.medium, conductivity: undefined, conductivityRange: mapConductivities(fixed) }, samplesPerPopulation: 200, topN: 1 };
   if (mapRequest) delete (mapRequest.medium as { conductivity?: number }).conductivity;
-  const saved = inputs.results as { rank?: unknown } | undefined;
+  const saved = inputs.results as { rank?: unknown; window?: { conductivity?: unknown; bandStart?: unknown; bandStop?: unknown } | null } | undefined;
+  const w = saved?.window;
+  const initialWindow = w && typeof w.conductivity === "number" && typeof w.bandStart === "number" && typeof w.bandStop === "number" ? { conductivity: w.conductivity, bandStart: w.bandStart, bandStop: w.bandStop } : null;
   return {
     ok: true,
     request,
@@ -27,6 +29,7 @@ export function resultsSetup(inputs: WizardInputs):
       names: { target: ready.populations.target.name, other: ready.populations.other.name },
       specs: { target: ready.populations.target.spec, other: ready.populations.other.spec },
       initialRank: typeof saved?.rank === "number" ? saved.rank : null,
+      initialWindow,
       bufferConductivity: fixed ?? null,
       permittivity: request.medium.permittivity ?? 78.3,
     },

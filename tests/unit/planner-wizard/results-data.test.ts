@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { sci } from "@/lib/charts/format";
-import { crossoverPolylines, signedSeparation, toProtocolWarning } from "@/lib/planner-wizard/results-data";
+import { blockerNames, signedSeparation, toProtocolWarning } from "@/lib/planner-wizard/results-data";
 
 describe("results helpers", () => {
   it("signs the separation by the target's direction and keeps it within ±1", () => {
@@ -14,13 +14,22 @@ describe("results helpers", () => {
     expect(Array.from(signedSeparation(result))).toEqual([0.8, -0.5, 0, 1]);
   });
 
-  it("joins the n-th crossover of each conductivity row and breaks where a row has none", () => {
-    const lines = crossoverPolylines([[1e5, 1e8], [2e5], [4e5, 1e8]], [0.001, 0.01, 0.1]);
-    expect(lines).toEqual([
-      [[1e5, 0.001], [2e5, 0.01], [4e5, 0.1]],
-      [[1e8, 0.001]],
-      [[1e8, 0.1]],
-    ]);
+  it("signs by the mean cell's Re[K] when the map has it, so the hover agrees with the crossover lines (3.48 kHz below a crossover reads negative)", () => {
+    const result = {
+      model: { targetId: "target" },
+      map: {
+        separationScore: [0.3, 0.3],
+        // All sampled cells undecided (|Re[K]| below the margin): the fractions alone cannot give a direction.
+        fractions: [{ populationId: "target", positive: [0, 0], negative: [0, 0] }],
+        reK: [{ populationId: "target", values: [-0.04, 0.2] }],
+      },
+    } as unknown as Parameters<typeof signedSeparation>[0];
+    expect(Array.from(signedSeparation(result))).toEqual([-0.3, 0.3]);
+  });
+
+  it("names the limits that refuse each point from the bit masks", () => {
+    const names = blockerNames({ map: { blockers: [0, 0b1000010], blockerCodes: ["recovery", "purity", "generator", "heating", "transmembrane", "electrothermal", "acElectroosmosis"] } } as unknown as Parameters<typeof blockerNames>[0]);
+    expect(names).toEqual(["", "minimum purity, AC electro-osmosis limit"]);
   });
 
   it("stores the planner's 'warning' severity as the protocol's 'caution'", () => {

@@ -50,7 +50,7 @@ function check(p: Particle, conds: number[]) {
   return { branches, longest };
 }
 
-describe("crossover branches", () => {
+describe("crossover branches", { timeout: 60_000 }, () => {
   it("live yeast, 1–100 mS/m: the crossover count changes with conductivity and no segment spans more than one cell (zero contour, d3-contour)", () => {
     const p = buildParticle("live", PARTICLE_PRESETS.yeastViable.model);
     const { branches, longest } = check(p, logSpace({ start: 1e-3, stop: 0.1, points: 31 }));

@@ -15,7 +15,7 @@ const capture = (over: Partial<WindowsRequest["device"]> = {}): WindowsRequest =
     constraints: { maxAcElectroosmosis: "likely", maxTemperatureRise: 10, maxElectrothermalRatio: 10 },
   });
 
-describe("capture holds against the flow", () => {
+describe("capture holds against the flow", { timeout: 60_000 }, () => {
   it("plane Poiseuille profile: u(z) = 6ū(z/H)(1 − z/H), 1.5ū on the centre line (textbook laminar channel flow)", () => {
     expect(poiseuilleSpeed(1e-3, 25e-6, 50e-6)).toBeCloseTo(1.5e-3, 12);
     expect(poiseuilleSpeed(833e-6, 10e-6, 50e-6)).toBeCloseTo(6 * 833e-6 * 0.2 * 0.8, 12);
@@ -57,7 +57,7 @@ describe("capture holds against the flow", () => {
   });
 });
 
-describe("array heating in the planner (PHYSICS.md §5)", () => {
+describe("array heating in the planner (PHYSICS.md §5)", { timeout: 60_000 }, () => {
   it("an interdigitated device is checked against the array estimate; both estimates are reported", () => {
     const res = planWindows(liveDeadRequest({ constraints: { maxAcElectroosmosis: "likely", maxTemperatureRise: 5 } }));
     expect(res.model.heating.checked).toBe("array");
@@ -81,7 +81,7 @@ describe("array heating in the planner (PHYSICS.md §5)", () => {
   });
 });
 
-describe("evaluation heights lie inside the channel", () => {
+describe("evaluation heights lie inside the channel", { timeout: 60_000 }, () => {
   it("refuses 500 µm above the electrodes in a 50 µm channel, naming the field, the value and the channel height", () => {
     const req = liveDeadRequest({ device: { geometry: { kind: "interdigitated", electrodeWidth: 20e-6, electrodeGap: 20e-6, height: 500e-6 }, maxVoltageVpp: 10, channelHeight: 50e-6 } });
     let err: unknown;
@@ -97,7 +97,7 @@ describe("evaluation heights lie inside the channel", () => {
   });
 });
 
-describe("one window per feasible region", () => {
+describe("one window per feasible region", { timeout: 60_000 }, () => {
   it("adjacent rows of one region make one window with a conductivity span; distinct regions stay distinct", () => {
     const res = planWindows(liveDeadRequest({ medium: { conductivityRange: { start: 1e-3, stop: 0.3, points: 25 } }, constraints: { maxAcElectroosmosis: "likely" } }));
     // Independent flood fill (4-neighbour) over the feasible map.
@@ -132,7 +132,7 @@ describe("one window per feasible region", () => {
   });
 });
 
-describe("osmolality band by cell type", () => {
+describe("osmolality band by cell type", { timeout: 60_000 }, () => {
   it("walled cells (yeast) get the walled band, cells without a wall the mammalian 270–330 mOsm/kg (PHYSICS.md §4)", async () => {
     const { osmolalityBandFor } = await import("@/lib/planner");
     expect(osmolalityBandFor(["walled", "walled"]).cells).toBe("walled");

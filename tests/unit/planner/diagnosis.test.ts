@@ -32,7 +32,7 @@ function mammalian(over: Partial<WindowsRequest> = {}, constraints: WindowsReque
   };
 }
 
-describe("blockers and diagnosis", () => {
+describe("blockers and diagnosis", { timeout: 60_000 }, () => {
   it("mammalian live/dead, 2–100 mS/m, deflection: no window, and the message names AC electro-osmosis with the change that admits the best point", () => {
     const res = planWindows(mammalian());
     expect(res.windowCount).toBe(0);

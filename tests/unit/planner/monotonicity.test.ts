@@ -51,7 +51,7 @@ describe("monotonicity", () => {
       }),
       { numRuns: 25 },
     );
-  });
+  }, 120_000);
 
   it("raising the generator limit never lowers a feasible point's predicted recovery", () => {
     fc.assert(
@@ -65,5 +65,5 @@ describe("monotonicity", () => {
       }),
       { numRuns: 25 },
     );
-  });
+  }, 120_000);
 });
