@@ -1,6 +1,7 @@
 import { sweepMapCsvOf } from "@/lib/exports/compute-csv";
 import { csvResponse } from "@/lib/exports/respond";
-import { apiRoute, readJson } from "@/lib/http/api";
+import { apiRoute } from "@/lib/http/api";
+import { readJson } from "@/lib/http/body";
 
 export const runtime = "nodejs";
 
