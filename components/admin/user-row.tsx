@@ -33,7 +33,14 @@ export function UserRow({ user, self }: Props) {
           className="input py-1"
           defaultValue={user.role}
           disabled={self || pending}
-          onChange={(e) => run(setRoleAction, { userId: String(user.id), role: e.target.value })}
+          onChange={(e) => {
+            const role = e.target.value as Role;
+            if (!window.confirm(`Change ${user.email} from ${ROLE_LABELS[user.role]} to ${ROLE_LABELS[role]}? What they can see and do changes at their next request.`)) {
+              e.target.value = user.role;
+              return;
+            }
+            run(setRoleAction, { userId: String(user.id), role });
+          }}
         >
           {ROLES.map((r) => <option key={r} value={r}>{ROLE_LABELS[r]}</option>)}
         </select>
@@ -50,7 +57,10 @@ export function UserRow({ user, self }: Props) {
             type="button"
             className={user.active ? "btn-quiet" : "btn"}
             disabled={pending}
-            onClick={() => run(setActiveAction, { userId: String(user.id), active: String(!user.active) })}
+            onClick={() => {
+              if (user.active && !window.confirm(`Deactivate ${user.email}? They are signed out and can no longer sign in until reactivated.`)) return;
+              run(setActiveAction, { userId: String(user.id), active: String(!user.active) });
+            }}
           >
             {user.active ? "Deactivate" : "Reactivate"}
           </button>

@@ -2,6 +2,7 @@
 
 import { VictoryArea, VictoryAxis, VictoryChart, VictoryContainer, VictoryLabel, VictoryLine, VictoryScatter } from "victory";
 import { decadeTicks, formatFrequency } from "@/lib/charts/format";
+import { layoutLabels, textWidth } from "@/lib/charts/label-layout";
 import type { SpectrumSeries } from "@/lib/planner-wizard/spectra-request";
 import { DepPatterns, DepSwatch } from "./dep-patterns";
 
@@ -34,7 +35,13 @@ export function SpectraChart({ lines, marker, title, height = 320 }: { lines: Sp
   const f = lines[0]?.series.frequencies ?? [1e3, 1e9];
   const fMin = f[0], fMax = f[f.length - 1];
   const region = (y: number, y0: number) => [{ x: fMin, y, y0 }, { x: fMax, y, y0 }];
-  const crossovers = lines.flatMap((l) => l.series.crossovers.map((x, i) => ({ x, y: 0, key: l.key, label: `${l.key === "target" ? "T" : "O"}${i + 1} ${formatFrequency(x, 3)}` })));
+  const raw = lines.flatMap((l) => l.series.crossovers.map((x, i) => ({ x, y: 0, key: l.key, label: `${l.key === "target" ? "T" : "O"}${i + 1} ${formatFrequency(x, 3)}` })));
+  // Crossover labels: stacked on up to three lines and kept inside the plot, so none overlaps another or is cut off.
+  const plot = { left: 74, right: 720 - 20 };
+  const px = (x: number) => plot.left + ((Math.log10(x) - Math.log10(fMin)) / (Math.log10(fMax) - Math.log10(fMin))) * (plot.right - plot.left);
+  const placed = layoutLabels(raw.map((c) => ({ x: px(c.x), width: textWidth(c.label, 10) })), { ...plot, lines: 3, gap: 6 });
+  const LINE_DY = [-10, -23, 20];
+  const crossovers = raw.map((c, k) => ({ ...c, label: placed[k].hidden ? "" : c.label, dy: placed[k].hidden ? 0 : LINE_DY[placed[k].line], dx: placed[k].hidden ? 0 : placed[k].left + textWidth(c.label, 10) / 2 - px(c.x) }));
   return (
     <figure className="m-0" data-testid="spectra-chart">
       <DepPatterns />
@@ -86,7 +93,7 @@ export function SpectraChart({ lines, marker, title, height = 320 }: { lines: Sp
           size={4.5}
           symbol={({ datum }: { datum?: { key: string } }) => (datum?.key === "target" ? "circle" : "diamond")}
           labels={({ datum }: { datum: { label: string } }) => datum.label}
-          labelComponent={<VictoryLabel dy={-10} style={{ fontSize: 10, fill: "#1f2933" }} />}
+          labelComponent={<VictoryLabel dy={({ datum }: { datum?: { dy: number } }) => datum?.dy ?? -10} dx={({ datum }: { datum?: { dx: number } }) => datum?.dx ?? 0} style={{ fontSize: 10, fill: "#1f2933" }} />}
           style={{ data: { fill: "#ffffff", stroke: "#1f2933", strokeWidth: 1.5 } }}
         />
         {marker ? <VictoryLine data={[{ x: marker, y: Y_MIN }, { x: marker, y: Y_MAX }]} style={{ data: { stroke: "#9b1c1c", strokeWidth: 2, strokeDasharray: "3 3" } }} /> : null}

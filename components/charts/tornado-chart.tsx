@@ -1,4 +1,5 @@
 import { sig } from "@/lib/charts/format";
+import { textWidth } from "@/lib/charts/label-layout";
 import type { TornadoBar } from "@/lib/planner-wizard/results-data";
 
 /**
@@ -8,14 +9,15 @@ import type { TornadoBar } from "@/lib/planner-wizard/results-data";
  */
 export function TornadoChart({ bars, title }: { bars: TornadoBar[]; title: string }) {
   const rowH = 30;
-  const labelW = 360;
+  // Room for the longest "population: parameter" label, so long population names are never cut off.
+  const labelW = Math.max(200, ...bars.map((b) => textWidth(b.label, 12) + 16));
   const plotW = 380;
   const maxAbs = Math.max(0.05, ...bars.flatMap((b) => [Math.abs(b.low ?? 0), Math.abs(b.high ?? 0)]));
   const x = (v: number) => labelW + plotW / 2 + (v / maxAbs) * (plotW / 2 - 95);
   const height = bars.length * rowH + 40;
   return (
     <figure className="m-0">
-      <svg viewBox={`0 0 ${labelW + plotW + 20} ${height}`} className="w-full max-w-3xl" role="img" aria-label={title}>
+      <svg viewBox={`0 0 ${labelW + plotW + 20} ${height}`} className="w-full max-w-4xl" role="img" aria-label={title}>
         <defs>
           <pattern id="sw-tornado-low" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
             <rect width="6" height="6" fill="#ffffff" />

@@ -52,6 +52,11 @@ export function SpectrumPreview({ input, mediumNote }: { input: PreviewInput; me
       </div>
       <ComputeState slow={slow} stale={busy && Boolean(query.data)} error={query.error ? (query.error as Error).message : null} />
       {!input.target && !input.other && <p className="text-sm text-ink-muted">Fix the fields marked below to see the spectra.</p>}
+      {(input.target === null) !== (input.other === null) && (
+        <p className="text-sm text-caution" data-testid="preview-missing">
+          The curve of the {input.target === null ? "target population" : "population to remove"} is not drawn: one of its fields is invalid. Fix the field marked in red below and the curve comes back.
+        </p>
+      )}
       {query.data && query.data.length > 0 && (
         <div className={busy && query.data ? "opacity-60 transition-opacity" : "transition-opacity"}>
           <SpectraChart lines={query.data} title="Re[K] of both populations against frequency" />

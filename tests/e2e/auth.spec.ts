@@ -65,8 +65,15 @@ test("an admin creates a user, deactivates them, and the deactivated user cannot
   await signIn(otherPage, email, "a-long-enough-password");
   await otherPage.close();
 
+  // Deactivating asks first: dismissing changes nothing, confirming deactivates.
+  page.once("dialog", (d) => void d.dismiss());
+  await row.getByRole("button", { name: "Deactivate" }).click();
+  await expect(row.getByText("Active", { exact: true })).toBeVisible();
+  let question = "";
+  page.once("dialog", (d) => { question = d.message(); void d.accept(); });
   await row.getByRole("button", { name: "Deactivate" }).click();
   await expect(row.getByText("Deactivated")).toBeVisible();
+  expect(question).toContain(`Deactivate ${email}?`);
 
   const third = await other.newPage();
   await third.goto("/login");

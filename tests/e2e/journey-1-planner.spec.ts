@@ -114,6 +114,6 @@ test("developer builds a live/dead pair, reaches ranked windows, selects one and
 
   // The planner's landing page lists the draft to resume, linked to the saved protocol.
   await page.goto("/planner");
-  await expect(page.getByTestId("planner-draft-row").filter({ hasText: title })).toContainText("Saved as a protocol draft");
+  await expect(page.getByTestId("planner-draft-row").filter({ hasText: title })).toContainText("Saved to a protocol");
   expect(draftUrl).toMatch(/\/planner\/\d+$/);
 });
