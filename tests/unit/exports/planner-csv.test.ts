@@ -3,7 +3,7 @@ import Papa from "papaparse";
 import { describe, expect, it } from "vitest";
 import { evaluateSpectra, logSpace } from "@/lib/dielectric";
 import { exportFileName, spectraCsv, sweepMapCsv, windowsCsv } from "@/lib/exports/planner-csv";
-import { particleFrom, planWindows } from "@/lib/planner";
+import { particleFrom, planWindows, type PopulationSpec } from "@/lib/planner";
 import { liveDeadRequest } from "../planner/fixtures";
 
 const parse = (csv: string) => Papa.parse<string[]>(csv.trim(), { skipEmptyLines: true }).data;
@@ -44,7 +44,7 @@ describe("planner CSV exports", { timeout: 60_000 }, () => {
   });
 
   it("spectra: Re[K] and Im[K] per population against frequency, with the medium conductivity", () => {
-    const sp = evaluateSpectra({ medium: { conductivity: 0.01, permittivity: 78 }, frequencies: logSpace({ start: 1e3, stop: 1e9, points: 61 }), particles: [particleFrom("live", req.populations[0].spec)] });
+    const sp = evaluateSpectra({ medium: { conductivity: 0.01, permittivity: 78 }, frequencies: logSpace({ start: 1e3, stop: 1e9, points: 61 }), particles: [particleFrom("live", req.populations[0].spec as PopulationSpec)] });
     const rows = parse(spectraCsv(sp, names, 0.01));
     expect(rows[0]).toEqual(["frequency (Hz)", "medium conductivity (S/m)", "Re[K], Live cells (dimensionless)", "Im[K], Live cells (dimensionless)"]);
     expect(rows).toHaveLength(62);
