@@ -1,10 +1,9 @@
+import "./load-env";
 import path from "node:path";
 import { createBackup } from "../lib/backup/create";
-import { loadDotEnv } from "./env-file";
 
 /** npm run db:backup [-- --out DIR]: the database and every stored object in one timestamped archive (BACKUP_DIR). */
 async function main(): Promise<void> {
-  loadDotEnv();
   const i = process.argv.indexOf("--out");
   const out = path.resolve(i > 0 ? process.argv[i + 1] : (process.env.BACKUP_DIR ?? ".data/backups"));
   const { archive, manifest } = await createBackup(out);

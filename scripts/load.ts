@@ -6,6 +6,7 @@
  * a high RATE_LIMIT_PER_MINUTE, or the per-token limiter answers 429 and those count as errors.
  * LOAD_SECONDS and LOAD_CONNECTIONS override the defaults; LOAD_ONLY=name,name picks scenarios.
  */
+import "./load-env";
 import { execSync } from "node:child_process";
 import { mkdirSync, writeFileSync } from "node:fs";
 import { createRequire } from "node:module";
@@ -15,15 +16,12 @@ import { DEMO_PASSWORD } from "../db/seeds/01_users";
 import { buildParticle, PARTICLE_PRESETS } from "../lib/dielectric";
 import { createToken, revokeToken } from "../lib/tokens/service";
 import { findUserById } from "../lib/users/repo";
-import { loadDotEnv } from "./env-file";
 
 interface AutocannonRun extends PromiseLike<{ errors: number; timeouts: number }> {
   on(event: "response", listener: (client: unknown, status: number, bytes: number, ms: number) => void): void;
 }
 type Autocannon = (opts: Record<string, unknown>) => AutocannonRun;
 const autocannon = createRequire(import.meta.url)("autocannon") as Autocannon;
-
-loadDotEnv();
 const BASE = (process.env.LOAD_BASE_URL ?? process.env.APP_BASE_URL ?? `http://127.0.0.1:${process.env.APP_PORT ?? 3000}`).replace(/\/$/, "");
 const CONNECTIONS = Number(process.env.LOAD_CONNECTIONS ?? 16);
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 30);

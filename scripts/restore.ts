@@ -1,9 +1,8 @@
+import "./load-env";
 import { restoreBackup } from "../lib/backup/restore";
-import { loadDotEnv } from "./env-file";
 
 /** npm run db:restore -- ARCHIVE [--force]: checks every checksum, then restores the database and the stored objects. */
 async function main(): Promise<number> {
-  loadDotEnv();
   const args = process.argv.slice(2);
   const archive = args.find((a) => !a.startsWith("--"));
   if (!archive) {

@@ -1,9 +1,9 @@
+import "./load-env";
 import path from "node:path";
 import { db } from "../db/knex";
 import { sweepStoredFiles } from "../lib/maintenance/orphans";
 import { migrateUploadDir } from "../lib/runs/legacy-files";
 import { ensureBucket, storageConfig } from "../lib/storage";
-import { loadDotEnv } from "./env-file";
 
 /**
  * Object-store maintenance:
@@ -12,7 +12,6 @@ import { loadDotEnv } from "./env-file";
  *   storage.ts migrate [--keep] moves files from UPLOAD_DIR into the store, checking every SHA-256
  */
 async function main(): Promise<number> {
-  loadDotEnv();
   const [command, ...flags] = process.argv.slice(2);
   const { bucket, endpoint } = storageConfig();
   if (command === "check") {
