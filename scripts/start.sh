@@ -31,6 +31,7 @@ if [ "${SMTP_HOST:-127.0.0.1}" = "127.0.0.1" ]; then
   node --import tsx scripts/mail-sink.ts & PIDS+=("$!")
 fi
 
+export S3_ENDPOINT="${S3_ENDPOINT-http://127.0.0.1:4500}"  # unset (an .env from before the object store): the local fake
 s3_fake_start "$ROOT/.data/s3"; [ -n "$S3_PID" ] && PIDS+=("$S3_PID")
 node --import tsx scripts/storage.ts check || die "File storage is unavailable (S3_ENDPOINT=${S3_ENDPOINT:-default}, bucket ${S3_BUCKET:-sievewright}); check the S3_* settings in .env."
 

@@ -5,7 +5,7 @@
 
 /** Connection settings of the S3-compatible store. */
 export interface StorageConfig {
-  /** Endpoint URL, e.g. "http://127.0.0.1:4500"; empty means the provider's default (AWS by region). */
+  /** Endpoint URL, e.g. "http://127.0.0.1:4500"; undefined means the provider's default (AWS by region). */
   endpoint: string | undefined;
   region: string;
   bucket: string;
@@ -23,7 +23,9 @@ const truthy = (v: string | undefined, fallback: boolean) => (v === undefined ||
  */
 export function storageConfig(env: NodeJS.ProcessEnv = process.env): StorageConfig {
   return {
-    endpoint: env.S3_ENDPOINT?.trim() || undefined,
+    // Unset: the local fake npm start runs (so an .env from before the object store keeps working); empty: the
+    // provider's default endpoint for the region (AWS).
+    endpoint: env.S3_ENDPOINT === undefined ? "http://127.0.0.1:4500" : env.S3_ENDPOINT.trim() || undefined,
     region: env.S3_REGION?.trim() || "us-east-1",
     bucket: env.S3_BUCKET?.trim() || "sievewright",
     accessKeyId: env.S3_ACCESS_KEY_ID ?? "S3RVER",

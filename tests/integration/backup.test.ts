@@ -46,7 +46,7 @@ describe("backup and restore", () => {
     tables = await snapshotTables();
     objects = await snapshotObjects();
     dir = await mkdtemp(path.join(tmpdir(), "sw-backup-test-"));
-  });
+  }, 300_000); // the demo seed plans windows for two protocols: tens of seconds on a busy 2-core machine
   afterAll(async () => {
     process.env.S3_BUCKET = realBucket;
     await closeDb();
