@@ -32,6 +32,7 @@ export { evaluateSweep, fillRealCMGrid } from "./sweep";
 export * from "./medium";
 export * from "./buffer";
 export * from "./motion";
+export * from "./electrodes";
 export * from "./sideEffects";
 export * from "./arrayHeating";
 export * from "./presets";

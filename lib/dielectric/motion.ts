@@ -5,6 +5,7 @@
 import { requirePositive } from "./guards";
 import { EngineValidationError } from "./errors";
 import { EPSILON_0 } from "./units";
+import { isomotiveField } from "./electrodes";
 
 /**
  * Time-averaged DEP force in N: F = 2π ε0 εm r³ Re[K] ∇|E_rms|².
@@ -36,8 +37,15 @@ export function voltageForVelocity(p: { velocity: number; radius: number; medium
   return Math.sqrt((3 * p.viscosity * p.velocity) / (EPSILON_0 * p.mediumPermittivity * p.radius * p.radius * a * p.gamma));
 }
 
-/** Electrode geometry: interdigitated electrodes, or a Γ the user pasted from their own field simulation. */
+/** Electrode geometry: interdigitated electrodes, the constant-gradient (isomotive) pair, or a Γ the user pasted from their own field simulation. */
 export type DeviceGeometry =
+  | {
+      kind: "isomotive";
+      /** Distance R from the vertex of the grounded vee to the driven electrode on the axis, m. */
+      vertexDistance: number;
+      /** Distance from the vertex where cells are judged, m (default R). */
+      distance?: number;
+    }
   | {
       kind: "interdigitated";
       /** Electrode width, m. */
@@ -63,7 +71,7 @@ export interface DeviceField {
   fieldPerVolt: number;
   /** Characteristic length for electrothermal estimates, m (the electrode gap). */
   length: number;
-  source: "interdigitated preset" | "user value";
+  source: "interdigitated preset" | "isomotive preset" | "user value";
   approximation: string;
 }
 
@@ -99,6 +107,10 @@ export function interdigitatedField(electrodeWidth: number, electrodeGap: number
  */
 export function deviceField(g: DeviceGeometry): DeviceField {
   if (g.kind === "interdigitated") return interdigitatedField(g.electrodeWidth, g.electrodeGap, g.height);
+  if (g.kind === "isomotive") {
+    const f = isomotiveField(g.vertexDistance, g.distance);
+    return { gamma: f.gamma, fieldPerVolt: f.fieldPerVolt, length: g.vertexDistance, source: f.source, approximation: f.approximation };
+  }
   requirePositive(g.gamma, "device.gamma", "field-gradient factor Γ (m⁻³)", 1e25);
   requirePositive(g.electrodeGap, "device.electrodeGap", "electrode gap (m)", 1e-2);
   return {

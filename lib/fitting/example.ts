@@ -1,4 +1,4 @@
-import { firstCrossoverFrequency } from "./model";
+import { SHELL_CROSSOVER_DEFAULTS, shellFirstCrossover } from "./shell-crossover";
 
 export interface ExampleCsvOptions {
   /** Membrane capacitance, F/m² (default 0.01 = 1 µF/cm²). */
@@ -17,7 +17,8 @@ export interface ExampleCsvOptions {
 }
 
 /**
- * A small crossover CSV generated from the single-shell relation (PHYSICS §2) for the upload
+ * A small crossover CSV generated from the engine's full single-shell model with the crossover
+ * fit's default cytoplasm, membrane thickness and medium permittivity (PHYSICS §7) for the upload
  * page: conductivity in mS/m, crossover in kHz to four significant digits, temperature in °C.
  * Invented parameters, not measured data.
  * @example
@@ -36,7 +37,7 @@ export function exampleCrossoverCsv(options: ExampleCsvOptions = {}): string {
   } = options;
   const lines = [["medium conductivity (mS/m)", "crossover frequency (kHz)", "temperature (°C)"].join(delimiter)];
   conductivitiesMilliSiemensPerMetre.forEach((mS, k) => {
-    const f = firstCrossoverFrequency(mS / 1000, radius, capacitance, conductance);
+    const f = shellFirstCrossover(mS / 1000, radius, capacitance, conductance, SHELL_CROSSOVER_DEFAULTS);
     if (f === null) throw new RangeError(`no crossover at ${mS} mS/m: σm ≤ r·G = ${radius * conductance * 1000} mS/m; choose a higher conductivity or a lower conductance`);
     const kHz = (f / 1000) * (1 + scatter * Math.sin(2.3 * k + 1));
     lines.push([String(mS), String(+kHz.toPrecision(4)), String(temperatureC)].join(delimiter));

@@ -1,6 +1,17 @@
 import { levenbergMarquardt } from "ml-levenberg-marquardt";
-import { crossoverGradient, crossoverRadicand } from "./model";
+import { crossoverGradient, crossoverRadicand, firstCrossoverFrequency } from "./model";
 import type { ResolvedPoint } from "./fit-input";
+import type { CrossoverModel } from "./shell-crossover";
+
+/**
+ * The thin-membrane closed form of PHYSICS §2 as a crossover model (the starting estimate of every fit).
+ * @example CLOSED_FORM_MODEL.frequency(0.01, 5e-6, 0.01, 0) // ≈ 45 016 Hz
+ */
+export const CLOSED_FORM_MODEL: CrossoverModel = {
+  kind: "closed-form",
+  frequency: firstCrossoverFrequency,
+  gradient: crossoverGradient,
+};
 
 /**
  * The least-squares problem in scaled parameters: c = C / cScale, g = G / gScale, so both are
@@ -16,6 +27,8 @@ export interface Problem {
   gScale: number;
   /** Largest G that keeps a crossover at every point: min σ/r (S/m²). */
   gMax: number;
+  /** The crossover model fitted: the full shell model or the closed form. */
+  model: CrossoverModel;
 }
 
 export interface Estimate {
@@ -33,7 +46,7 @@ function median(values: number[]): number {
 }
 
 /**
- * Builds the scaled problem for the given points.
+ * Builds the scaled problem for the given points (closed-form model unless `model` is given).
  * @example buildProblem(points, "relative", true, 0).gMax // min σ/r in S/m²
  */
 export function buildProblem(
@@ -41,6 +54,7 @@ export function buildProblem(
   weighting: "relative" | "absolute",
   fitConductance: boolean,
   fixedConductance: number,
+  model: CrossoverModel = CLOSED_FORM_MODEL,
 ): Problem {
   const fRef = median(points.map((p) => p.frequency));
   const ratios = points.map((p) => p.conductivity / p.radius);
@@ -52,13 +66,13 @@ export function buildProblem(
     cScale: C_SCALE,
     gScale: median(ratios),
     gMax: ratios.reduce((m, v) => Math.min(m, v), Infinity),
+    model,
   };
 }
 
 /** Model frequency (Hz) at one point; 0 where no crossover exists. */
-function modelAt(p: ResolvedPoint, e: Estimate): number {
-  const q = crossoverRadicand(p.conductivity, p.radius, e.conductance);
-  return q > 0 ? Math.sqrt(q) / (2 * Math.PI * p.radius * e.capacitance) : 0;
+function modelAt(model: CrossoverModel, p: ResolvedPoint, e: Estimate): number {
+  return model.frequency(p.conductivity, p.radius, e.capacitance, e.conductance) ?? 0;
 }
 
 /**
@@ -66,7 +80,7 @@ function modelAt(p: ResolvedPoint, e: Estimate): number {
  * @example weightedResiduals(problem, { capacitance: 0.01, conductance: 0 })
  */
 export function weightedResiduals(problem: Problem, e: Estimate): number[] {
-  return problem.points.map((p, i) => problem.weights[i] * (p.frequency - modelAt(p, e)));
+  return problem.points.map((p, i) => problem.weights[i] * (p.frequency - modelAt(problem.model, p, e)));
 }
 
 /**
@@ -76,7 +90,7 @@ export function weightedResiduals(problem: Problem, e: Estimate): number[] {
  */
 export function weightedJacobian(problem: Problem, e: Estimate): number[][] {
   return problem.points.map((p, i) => {
-    const d = crossoverGradient(p.conductivity, p.radius, e.capacitance, e.conductance);
+    const d = problem.model.gradient(p.conductivity, p.radius, e.capacitance, e.conductance);
     const w = problem.weights[i];
     const dc = d ? w * d.dC * problem.cScale : 0;
     return problem.fitConductance ? [dc, d ? w * d.dG * problem.gScale : 0] : [dc];
@@ -144,7 +158,8 @@ export function runLevenbergMarquardt(problem: Problem, start: Estimate): { esti
   const y = problem.points.map((p, i) => problem.weights[i] * p.frequency);
   const model = (params: number[]) => {
     const e = fromScaled(problem, params);
-    return (i: number) => problem.weights[i] * modelAt(problem.points[i], e);
+    const values = problem.points.map((p, i) => problem.weights[i] * modelAt(problem.model, p, e));
+    return (i: number) => values[i];
   };
   const jacobian = (params: number[]) => {
     const rows = weightedJacobian(problem, fromScaled(problem, params));

@@ -1,6 +1,7 @@
 import type { FieldIssue } from "@/lib/errors";
 import { FittingInputError } from "./errors";
-import type { CrossoverPoint, FitOptions } from "./fit-types";
+import type { CrossoverModelUsed, CrossoverPoint, FitOptions } from "./fit-types";
+import { SHELL_CROSSOVER_DEFAULTS } from "./shell-crossover";
 
 /** A validated point with its radius resolved; index is its position in the caller's array. */
 export interface ResolvedPoint {
@@ -18,6 +19,7 @@ export interface ResolvedOptions {
   weighting: "relative" | "absolute";
   confidenceLevel: number;
   curvePoints: number;
+  model: CrossoverModelUsed;
 }
 
 /** Most points one fit takes: far above any crossover series, low enough to fit in well under a second. */
@@ -54,8 +56,10 @@ export function resolveOptions(options: FitOptions): ResolvedOptions {
   const weighting = options.weighting ?? "relative";
   if (weighting !== "relative" && weighting !== "absolute")
     issues.push({ path: "weighting", message: `weighting must be "relative" or "absolute"; got ${describe(weighting)}` });
+  const model = resolveModel(options, issues);
   if (issues.length) throw new FittingInputError(issues);
   return {
+    model,
     fitConductance: options.fitConductance ?? true,
     fixedConductance: g ?? 0,
     initialCapacitance: initial.capacitance,
@@ -63,6 +67,36 @@ export function resolveOptions(options: FitOptions): ResolvedOptions {
     confidenceLevel: level,
     curvePoints,
   };
+}
+
+function inRange(v: unknown, lo: number, hi: number): v is number {
+  return typeof v === "number" && Number.isFinite(v) && v >= lo && v <= hi;
+}
+
+/** The crossover model and its fixed parts, defaults filled in; bad values are added to `issues`. */
+function resolveModel(options: FitOptions, issues: FieldIssue[]): CrossoverModelUsed {
+  const kind = options.model ?? "shell";
+  if (kind !== "shell" && kind !== "closed-form") {
+    issues.push({ path: "model", message: `model must be "shell" or "closed-form"; got ${describe(kind)}` });
+  }
+  if (kind !== "shell") return { kind: "closed-form", cytoplasm: null, membraneThickness: null, mediumPermittivity: null, defaultsUsed: [] };
+  const d = SHELL_CROSSOVER_DEFAULTS;
+  const cyt = options.cytoplasm ?? d.cytoplasm;
+  if (!inRange(cyt?.permittivity, 1, 200))
+    issues.push({ path: "cytoplasm.permittivity", message: `cytoplasm relative permittivity must be between 1 and 200; got ${describe(cyt?.permittivity)}` });
+  if (!inRange(cyt?.conductivity, 1e-4, 20))
+    issues.push({ path: "cytoplasm.conductivity", message: `cytoplasm conductivity must be between 0.0001 and 20 S/m; got ${describe(cyt?.conductivity)}` });
+  const thickness = options.membraneThickness ?? d.membraneThickness;
+  if (!inRange(thickness, 1e-9, 1e-7))
+    issues.push({ path: "membraneThickness", message: `membrane thickness must be between 1e-9 and 1e-7 m (1–100 nm); got ${describe(thickness)}` });
+  const em = options.mediumPermittivity ?? d.mediumPermittivity;
+  if (!inRange(em, 1, 200))
+    issues.push({ path: "mediumPermittivity", message: `medium relative permittivity must be between 1 and 200; got ${describe(em)}` });
+  const defaultsUsed: CrossoverModelUsed["defaultsUsed"] = [];
+  if (options.cytoplasm === undefined) defaultsUsed.push("cytoplasm");
+  if (options.membraneThickness === undefined) defaultsUsed.push("membraneThickness");
+  if (options.mediumPermittivity === undefined) defaultsUsed.push("mediumPermittivity");
+  return { kind: "shell", cytoplasm: { permittivity: cyt?.permittivity, conductivity: cyt?.conductivity }, membraneThickness: thickness, mediumPermittivity: em, defaultsUsed };
 }
 
 /**

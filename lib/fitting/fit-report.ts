@@ -1,4 +1,3 @@
-import { crossoverGradient } from "./model";
 import type { Estimate, Problem } from "./fit-core";
 import type { FitStatistics } from "./fit-stats";
 import type { CurvePoint, FitWarning, ParameterEstimate } from "./fit-types";
@@ -100,7 +99,7 @@ export function fittedCurve(problem: Problem, e: Estimate, stats: FitStatistics,
   const points: CurvePoint[] = [];
   for (let k = 0; k < count; k++) {
     const s = lo * (hi / lo) ** (k / (count - 1));
-    const d = crossoverGradient(s, radius, e.capacitance, e.conductance);
+    const d = problem.model.gradient(s, radius, e.capacitance, e.conductance);
     if (!d) {
       points.push({ conductivity: s, crossoverFrequency: null, lower: null, upper: null });
       continue;

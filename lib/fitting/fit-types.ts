@@ -21,6 +21,27 @@ export interface FitOptions {
   confidenceLevel?: number;
   /** Number of points in the sampled fitted curve (default 60, at least 2). */
   curvePoints?: number;
+  /** "shell" (default): the engine's full single-shell model; "closed-form": the thin-membrane approximation of PHYSICS §2. */
+  model?: "shell" | "closed-form";
+  /** Cytoplasm of the shell model: relative permittivity and conductivity (S/m); default 60 and 0.5 S/m. */
+  cytoplasm?: { permittivity: number; conductivity: number };
+  /** Membrane thickness of the shell model, m (default 7 nm). */
+  membraneThickness?: number;
+  /** Medium relative permittivity of the shell model (default 78.3, water at 25 °C). */
+  mediumPermittivity?: number;
+}
+
+/** Which crossover model was fitted and with what fixed parts (as used, defaults filled in). */
+export interface CrossoverModelUsed {
+  kind: "shell" | "closed-form";
+  /** Shell model only: cytoplasm relative permittivity and conductivity (S/m). */
+  cytoplasm: { permittivity: number; conductivity: number } | null;
+  /** Shell model only: membrane thickness, m. */
+  membraneThickness: number | null;
+  /** Shell model only: medium relative permittivity. */
+  mediumPermittivity: number | null;
+  /** Parts taken from the defaults rather than the caller. */
+  defaultsUsed: ("cytoplasm" | "membraneThickness" | "mediumPermittivity")[];
 }
 
 export interface ParameterEstimate {
@@ -75,7 +96,12 @@ export interface CurvePoint {
 }
 
 export interface MembraneFit {
+  /** The model fitted, in words. */
   model: string;
+  /** The model fitted and its fixed parts. */
+  modelUsed: CrossoverModelUsed;
+  /** What the intervals cover: measurement noise only, not model error. */
+  intervalNote: string;
   weighting: "relative" | "absolute";
   capacitance: ParameterEstimate;
   conductance: ParameterEstimate;

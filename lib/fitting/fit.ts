@@ -4,11 +4,37 @@ import { resolveOptions, resolvePoints, type ResolvedPoint } from "./fit-input";
 import { extent, fittedCurve, identifiabilityWarnings, parameterEstimate } from "./fit-report";
 import { boundState, fitStatistics, isConverged } from "./fit-stats";
 import type { CrossoverPoint, FitOptions, FitWarning, MembraneFit, PointResidual } from "./fit-types";
-import { crossoverRadicand, firstCrossoverFrequency } from "./model";
+import { crossoverRadicand } from "./model";
+import { shellCrossoverModel, type CrossoverModel } from "./shell-crossover";
+import type { CrossoverModelUsed } from "./fit-types";
 
+/** The closed form in words. */
 export const MEMBRANE_FIT_MODEL =
   "Single-shell first crossover for a thin membrane and conductive interior in a low-conductivity medium: " +
   "f_xo1 = sqrt((σm − r·G)(2σm + r·G)) / (2π r C). A model prediction: verify on the bench.";
+
+/** What every interval of a fit covers. */
+export const INTERVAL_NOTE =
+  "The intervals cover measurement noise only (scatter about the fitted model), not model error: a wrong cytoplasm, membrane thickness or model shifts the estimates without widening them.";
+
+/**
+ * The fitted model in words, with its fixed parts in SI units.
+ * @example describeModel({ kind: "closed-form", cytoplasm: null, membraneThickness: null, mediumPermittivity: null, defaultsUsed: [] })
+ */
+export function describeModel(m: CrossoverModelUsed): string {
+  if (m.kind === "closed-form") return MEMBRANE_FIT_MODEL;
+  const dflt = m.defaultsUsed.length ? ` (defaults: ${m.defaultsUsed.join(", ")})` : "";
+  return (
+    `Full single-shell model: first crossover = lowest frequency where Re[K] changes from negative to positive, found by the engine, ` +
+    `with cytoplasm εr ${m.cytoplasm?.permittivity} and σ ${m.cytoplasm?.conductivity} S/m, membrane thickness ${m.membraneThickness} m, ` +
+    `medium εr ${m.mediumPermittivity}${dflt}; started from the thin-membrane closed form. A model prediction: verify on the bench.`
+  );
+}
+
+function crossoverModelFor(m: CrossoverModelUsed): CrossoverModel | null {
+  if (m.kind !== "shell" || !m.cytoplasm || m.membraneThickness === null || m.mediumPermittivity === null) return null;
+  return shellCrossoverModel({ cytoplasm: m.cytoplasm, membraneThickness: m.membraneThickness, mediumPermittivity: m.mediumPermittivity });
+}
 
 /** Points held out with a fixed G because σm ≤ r·G leaves them without a crossover. */
 function splitByCrossover(points: ResolvedPoint[], g: number) {
@@ -31,9 +57,9 @@ function optimise(problem: Problem, start: Estimate): { estimate: Estimate; iter
   return { estimate: best, iterations, converged: false };
 }
 
-function residualsOf(points: ResolvedPoint[], e: Estimate): PointResidual[] {
-  return points.map((p) => {
-    const predicted = firstCrossoverFrequency(p.conductivity, p.radius, e.capacitance, e.conductance) ?? 0;
+function residualsOf(problem: Problem, e: Estimate): PointResidual[] {
+  return problem.points.map((p) => {
+    const predicted = problem.model.frequency(p.conductivity, p.radius, e.capacitance, e.conductance) ?? 0;
     const residualHz = p.frequency - predicted;
     return { index: p.index, rowNumber: p.rowNumber, conductivity: p.conductivity, radius: p.radius, observed: p.frequency, predicted, residualHz, relativeResidual: residualHz / p.frequency };
   });
@@ -51,9 +77,10 @@ const rms = (v: number[]) => Math.sqrt(v.reduce((s, x) => s + x * x, 0) / v.leng
 
 /**
  * Fits membrane capacitance C (F/m²) and, unless `fitConductance: false`, conductance G (S/m²)
- * to measured first crossovers by Levenberg–Marquardt on the single-shell relation of
- * PHYSICS §2. Intervals are s²(JᵀJ)⁻¹ at the optimum with a Student-t factor for n − p
- * degrees of freedom. Throws FittingInputError for unusable input.
+ * to measured first crossovers by Levenberg–Marquardt. By default the model is the engine's full
+ * single-shell model (PHYSICS §7; `options.model: "closed-form"` fits the thin-membrane relation of §2,
+ * which is always the starting estimate). Intervals are s²(JᵀJ)⁻¹ at the optimum with a Student-t factor
+ * for n − p degrees of freedom; they cover measurement noise only. Throws FittingInputError for unusable input.
  * @example
  * const fit = fitMembrane(
  *   [{ conductivity: 0.01, crossoverFrequency: 3.2e4 }, { conductivity: 0.03, crossoverFrequency: 1.1e5 },
@@ -69,8 +96,12 @@ export function fitMembrane(points: readonly CrossoverPoint[], options: FitOptio
   const p = opts.fitConductance ? 2 : 1;
   if (kept.length < p)
     throw new FittingInputError([{ path: "points", message: `fitting ${p === 2 ? "capacitance and conductance" : "capacitance"} needs at least ${p} usable point(s); got ${kept.length}${dropped.length ? ` (${dropped.length} have no crossover at the fixed conductance)` : ""}` }]);
-  const problem = buildProblem(kept, opts.weighting, opts.fitConductance, opts.fixedConductance);
-  const start = startingEstimate(problem, opts.initialCapacitance, options.initial?.conductance);
+  const closed = buildProblem(kept, opts.weighting, opts.fitConductance, opts.fixedConductance);
+  const closedStart = startingEstimate(closed, opts.initialCapacitance, options.initial?.conductance);
+  const shell = crossoverModelFor(opts.model);
+  const first = shell ? optimise(closed, closedStart) : null;
+  const problem = shell ? buildProblem(kept, opts.weighting, opts.fitConductance, opts.fixedConductance, shell) : closed;
+  const start = first ? { ...first.estimate, conductance: Math.min(first.estimate.conductance, problem.gMax * 0.99) } : closedStart;
   const { estimate, iterations, converged } = optimise(problem, start);
   const stats = fitStatistics(problem, estimate, opts.confidenceLevel);
   const capacitance = parameterEstimate(estimate.capacitance, "F/m²", true, stats, 0);
@@ -85,10 +116,12 @@ export function fitMembrane(points: readonly CrossoverPoint[], options: FitOptio
   const [rMin, rMax] = extent(radii);
   if (rMax > rMin * 1.01)
     warnings.push({ code: "radius-varies", message: `Radii differ between points; each residual uses its own radius, the curve is drawn at the median radius ${(curve.radius * 1e6).toPrecision(3)} µm.` });
-  const residuals = residualsOf(kept, estimate);
+  const residuals = residualsOf(problem, estimate);
   const cov = stats.covariance;
   return {
-    model: MEMBRANE_FIT_MODEL,
+    model: describeModel(opts.model),
+    modelUsed: opts.model,
+    intervalNote: INTERVAL_NOTE,
     weighting: opts.weighting,
     capacitance,
     conductance,

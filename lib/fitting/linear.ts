@@ -42,3 +42,29 @@ export function scaledReciprocalCondition(a: number[][]): number {
   const rho = Math.min(1, Math.abs(a[0][1]) / Math.sqrt(a[0][0] * a[1][1]));
   return (1 - rho) / (1 + rho);
 }
+
+/**
+ * Inverse of a small square matrix by Gauss–Jordan elimination with partial pivoting, or null when a pivot falls
+ * below 1e-13 of the largest diagonal entry (numerically singular).
+ * @example invertMatrix([[2, 0], [0, 4]]) // [[0.5, 0], [0, 0.25]]
+ */
+export function invertMatrix(a: number[][]): number[][] | null {
+  const n = a.length;
+  const m = a.map((row, i) => [...row, ...Array.from({ length: n }, (_, j) => (i === j ? 1 : 0))]);
+  const scale = Math.max(...a.map((row, i) => Math.abs(row[i])), 0);
+  if (!(scale > 0)) return null;
+  for (let c = 0; c < n; c++) {
+    let piv = c;
+    for (let r = c + 1; r < n; r++) if (Math.abs(m[r][c]) > Math.abs(m[piv][c])) piv = r;
+    if (!(Math.abs(m[piv][c]) > 1e-13 * scale)) return null;
+    [m[c], m[piv]] = [m[piv], m[c]];
+    const d = m[c][c];
+    for (let k = 0; k < 2 * n; k++) m[c][k] /= d;
+    for (let r = 0; r < n; r++) {
+      if (r === c) continue;
+      const f = m[r][c];
+      if (f !== 0) for (let k = 0; k < 2 * n; k++) m[r][k] -= f * m[c][k];
+    }
+  }
+  return m.map((row) => row.slice(n));
+}

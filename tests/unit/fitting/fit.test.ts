@@ -13,10 +13,11 @@ const wide = [0.004, 0.006, 0.01, 0.02, 0.04, 0.07, 0.1];
 
 const inside = (v: number, ci: { lower: number; upper: number } | null) => ci !== null && ci.lower <= v && v <= ci.upper;
 
+// These tests pin the thin-membrane closed form (model: "closed-form"); the full shell model has its own tests in shell-fit.test.ts.
 describe("fitMembrane on exact synthetic data", () => {
   it("recovers C and G to 1e-8 relative with no warnings", () => {
     // Exact data from the model itself: the fit must return the generating values (common practice).
-    const fit = fitMembrane(syntheticCrossovers(wide, truth), { radius: truth.radius });
+    const fit = fitMembrane(syntheticCrossovers(wide, truth), { model: "closed-form", radius: truth.radius });
     expect(fit.capacitance.estimate / truth.capacitance).toBeCloseTo(1, 8);
     expect(fit.conductance.estimate / truth.conductance).toBeCloseTo(1, 8);
     expect(fit.converged).toBe(true);
@@ -28,7 +29,7 @@ describe("fitMembrane on exact synthetic data", () => {
   });
 
   it("recovers G = 0 when the data have no conductance and reports the bound", () => {
-    const fit = fitMembrane(syntheticCrossovers(wide, { ...truth, conductance: 0 }), { radius: truth.radius });
+    const fit = fitMembrane(syntheticCrossovers(wide, { ...truth, conductance: 0 }), { model: "closed-form", radius: truth.radius });
     expect(fit.capacitance.estimate / truth.capacitance).toBeCloseTo(1, 8);
     expect(fit.conductance.estimate).toBeLessThan(1e-3); // S/m², far below any membrane value (common practice)
     expect(fit.warnings.some((w) => w.code === "at-bound" && w.parameter === "conductance")).toBe(true);
@@ -38,7 +39,7 @@ describe("fitMembrane on exact synthetic data", () => {
 describe("fitMembrane on noisy synthetic data", () => {
   it("puts the true C and G inside their 95 % intervals (2 % noise, seed 7)", () => {
     // 2 % relative noise: an invented, typical bench scatter for crossover readings.
-    const fit = fitMembrane(syntheticCrossovers(wide, truth, 0.02, 7), { radius: truth.radius });
+    const fit = fitMembrane(syntheticCrossovers(wide, truth, 0.02, 7), { model: "closed-form", radius: truth.radius });
     expect(inside(truth.capacitance, fit.capacitance.confidenceInterval)).toBe(true);
     expect(inside(truth.conductance, fit.conductance.confidenceInterval)).toBe(true);
     expect(fit.capacitance.estimate).not.toBe(truth.capacitance);
@@ -54,7 +55,7 @@ describe("fitMembrane on noisy synthetic data", () => {
     let coverC = 0;
     let coverG = 0;
     for (let seed = 1; seed <= 200; seed++) {
-      const fit = fitMembrane(syntheticCrossovers(wide, truth, 0.03, seed), { radius: truth.radius });
+      const fit = fitMembrane(syntheticCrossovers(wide, truth, 0.03, seed), { model: "closed-form", radius: truth.radius });
       if (inside(truth.capacitance, fit.capacitance.confidenceInterval)) coverC++;
       if (inside(truth.conductance, fit.conductance.confidenceInterval)) coverG++;
     }
@@ -69,7 +70,7 @@ describe("fitMembrane on noisy synthetic data", () => {
     // a_i·0.01/C² per scaled unit; SE(C) = s·C²/sqrt(Σ a_i²), s² = Σe²/(n−1) (linearised least
     // squares, common practice).
     const pts = syntheticCrossovers(wide, { ...truth, conductance: 0 }, 0.02, 3);
-    const fit = fitMembrane(pts, { radius: truth.radius, fitConductance: false });
+    const fit = fitMembrane(pts, { model: "closed-form", radius: truth.radius, fitConductance: false });
     const C = fit.capacitance.estimate;
     const a = pts.map((p) => Math.SQRT2 * p.conductivity / (2 * Math.PI * truth.radius) / p.crossoverFrequency);
     const s2 = a.reduce((s, ai) => s + (1 - ai / C) ** 2, 0) / (pts.length - 1);
@@ -80,7 +81,7 @@ describe("fitMembrane on noisy synthetic data", () => {
   });
 
   it("also fits with absolute (Hz) weighting", () => {
-    const fit = fitMembrane(syntheticCrossovers(wide, truth, 0.02, 11), { radius: truth.radius, weighting: "absolute" });
+    const fit = fitMembrane(syntheticCrossovers(wide, truth, 0.02, 11), { model: "closed-form", radius: truth.radius, weighting: "absolute" });
     expect(fit.weighting).toBe("absolute");
     expect(inside(truth.capacitance, fit.capacitance.confidenceInterval)).toBe(true);
     expect(inside(truth.conductance, fit.conductance.confidenceInterval)).toBe(true);
@@ -93,7 +94,7 @@ describe("fitMembrane says what the data cannot determine", () => {
 
   it("flags the conductance of a too-narrow data set, with and without noise", () => {
     for (const noise of [0, 0.02]) {
-      const fit = fitMembrane(syntheticCrossovers(narrow, truth, noise, 5), { radius: truth.radius });
+      const fit = fitMembrane(syntheticCrossovers(narrow, truth, noise, 5), { model: "closed-form", radius: truth.radius });
       const codes = fit.warnings.filter((w) => w.parameter === "conductance").map((w) => w.code);
       expect(codes).toContain("narrow-conductivity-range");
       expect(codes).toContain("near-singular");
@@ -102,27 +103,27 @@ describe("fitMembrane says what the data cannot determine", () => {
   });
 
   it("says so when G is not distinguishable from zero", () => {
-    const fit = fitMembrane(syntheticCrossovers(wide, { ...truth, conductance: 50 }, 0.03, 9), { radius: truth.radius });
+    const fit = fitMembrane(syntheticCrossovers(wide, { ...truth, conductance: 50 }, 0.03, 9), { model: "closed-form", radius: truth.radius });
     const w = fit.warnings.find((x) => x.code === "parameter-undetermined" || x.code === "at-bound");
     expect(w?.parameter).toBe("conductance");
   });
 
   it("gives estimates without intervals when points equal parameters", () => {
-    const fit = fitMembrane(syntheticCrossovers([0.005, 0.05], truth, 0.01, 2), { radius: truth.radius });
+    const fit = fitMembrane(syntheticCrossovers([0.005, 0.05], truth, 0.01, 2), { model: "closed-form", radius: truth.radius });
     expect(fit.degreesOfFreedom).toBe(0);
     expect(fit.capacitance.confidenceInterval).toBeNull();
     expect(fit.warnings.map((w) => w.code)).toContain("no-degrees-of-freedom");
   });
 
   it("warns of few degrees of freedom", () => {
-    const fit = fitMembrane(syntheticCrossovers([0.005, 0.02, 0.08], truth, 0.01, 2), { radius: truth.radius });
+    const fit = fitMembrane(syntheticCrossovers([0.005, 0.02, 0.08], truth, 0.01, 2), { model: "closed-form", radius: truth.radius });
     expect(fit.warnings.map((w) => w.code)).toContain("few-points");
   });
 
   it("leaves out, and names, points without a crossover at a fixed G", () => {
     // Fixed G = 1000 S/m²: r·G = 5 mS/m, so the 4 mS/m point (row 2) has no crossover in the model.
     const pts = syntheticCrossovers(wide, truth, 0, 1);
-    const fit = fitMembrane(pts, { radius: truth.radius, fitConductance: false, initial: { conductance: 1000 } });
+    const fit = fitMembrane(pts, { model: "closed-form", radius: truth.radius, fitConductance: false, initial: { conductance: 1000 } });
     expect(fit.excluded.map((e) => e.rowNumber)).toEqual([2]);
     expect(fit.warnings.find((w) => w.code === "no-crossover")?.rowNumbers).toEqual([2]);
     expect(fit.pointCount).toBe(wide.length - 1);
@@ -134,7 +135,7 @@ describe("fitMembrane at the point limit", () => {
   it("fits 10 000 points in reasonable time and narrows the intervals", () => {
     const sig = Array.from({ length: MAX_FIT_POINTS }, (_, i) => 0.004 * 25 ** (i / (MAX_FIT_POINTS - 1)));
     const t0 = performance.now();
-    const fit = fitMembrane(syntheticCrossovers(sig, truth, 0.02, 3), { radius: truth.radius });
+    const fit = fitMembrane(syntheticCrossovers(sig, truth, 0.02, 3), { model: "closed-form", radius: truth.radius });
     // 10 s: generous ceiling on a shared 2-core machine (measured ≈0.4 s; common practice).
     expect(performance.now() - t0).toBeLessThan(10_000);
     expect(fit.converged).toBe(true);
@@ -152,7 +153,7 @@ describe("fitMembrane with a radius per point", () => {
       radius: radii[i],
       crossoverFrequency: firstCrossoverFrequency(s, radii[i], truth.capacitance, truth.conductance)!,
     }));
-    const fit = fitMembrane(pts);
+    const fit = fitMembrane(pts, { model: "closed-form" });
     expect(fit.capacitance.estimate / truth.capacitance).toBeCloseTo(1, 8);
     expect(fit.conductance.estimate / truth.conductance).toBeCloseTo(1, 8);
     expect(fit.warnings.map((w) => w.code)).toEqual(["radius-varies"]);
@@ -162,7 +163,7 @@ describe("fitMembrane with a radius per point", () => {
 
 describe("fitted curve", () => {
   it("spans the data, rises with conductivity and carries a band around it", () => {
-    const fit = fitMembrane(syntheticCrossovers(wide, truth, 0.02, 4), { radius: truth.radius, curvePoints: 25 });
+    const fit = fitMembrane(syntheticCrossovers(wide, truth, 0.02, 4), { model: "closed-form", radius: truth.radius, curvePoints: 25 });
     const pts = fit.curve.points;
     expect(pts).toHaveLength(25);
     expect(pts[0].conductivity).toBeCloseTo(0.004, 12);
@@ -185,7 +186,7 @@ describe("fitMembrane input errors", () => {
       { conductivity: -0.02, crossoverFrequency: 8e4, rowNumber: 3 },
     ];
     try {
-      fitMembrane(pts, { radius: 5e-6 });
+      fitMembrane(pts, { model: "closed-form", radius: 5e-6 });
       expect.unreachable();
     } catch (e) {
       expect(e).toBeInstanceOf(FittingInputError);
@@ -199,20 +200,20 @@ describe("fitMembrane input errors", () => {
   it("refuses a missing radius, too few points and bad options", () => {
     const one = [{ conductivity: 0.01, crossoverFrequency: 4e4 }];
     expect(() => fitMembrane(one)).toThrow(/no cell radius/);
-    expect(() => fitMembrane(one, { radius: 5e-6 })).toThrow(/at least 2 usable point/);
-    expect(() => fitMembrane(one, { radius: 5e-6, confidenceLevel: 95 })).toThrow(FittingInputError);
-    expect(() => fitMembrane([], { radius: 5e-6 })).toThrow(/got none/);
-    expect(() => fitMembrane([{ conductivity: 0.01, crossoverFrequency: Number.NaN }], { radius: 5e-6 })).toThrow(/crossover frequency/);
+    expect(() => fitMembrane(one, { model: "closed-form", radius: 5e-6 })).toThrow(/at least 2 usable point/);
+    expect(() => fitMembrane(one, { model: "closed-form", radius: 5e-6, confidenceLevel: 95 })).toThrow(FittingInputError);
+    expect(() => fitMembrane([], { model: "closed-form", radius: 5e-6 })).toThrow(/got none/);
+    expect(() => fitMembrane([{ conductivity: 0.01, crossoverFrequency: Number.NaN }], { model: "closed-form", radius: 5e-6 })).toThrow(/crossover frequency/);
   });
 
   it("refuses more points than MAX_FIT_POINTS", () => {
     const many = Array.from({ length: MAX_FIT_POINTS + 1 }, () => ({ conductivity: 0.01, crossoverFrequency: 4e4 }));
-    expect(() => fitMembrane(many, { radius: 5e-6 })).toThrow(/at most 10000 points/);
+    expect(() => fitMembrane(many, { model: "closed-form", radius: 5e-6 })).toThrow(/at most 10000 points/);
   });
 
   it("fits C from a single point with G fixed, without an interval", () => {
     const f = firstCrossoverFrequency(0.01, 5e-6, 0.012, 0)!;
-    const fit = fitMembrane([{ conductivity: 0.01, crossoverFrequency: f }], { radius: 5e-6, fitConductance: false });
+    const fit = fitMembrane([{ conductivity: 0.01, crossoverFrequency: f }], { model: "closed-form", radius: 5e-6, fitConductance: false });
     expect(fit.capacitance.estimate).toBeCloseTo(0.012, 12);
     expect(fit.capacitance.confidenceInterval).toBeNull();
   });
