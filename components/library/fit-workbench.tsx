@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { CROSSOVER_CSV_COLUMNS, listUnits, parseCrossoverCsv, type CrossoverCsvResult, type MembraneFit } from "@/lib/fitting";
 import { InputError } from "@/lib/errors";
-import { runCrossoverFit } from "@/lib/library/fit-run";
+import { runCrossoverFit, type CrossoverFitRequest } from "@/lib/library/fit-run";
 import { formatIn, fromSI, tidy, toSI } from "@/lib/units/lab";
 import { FitCurveChart, ResidualsChart } from "./fit-charts";
 
@@ -16,6 +16,19 @@ interface Props {
   currentC: number;
   currentG: number;
   exampleCsv: string;
+  /** The population's cytoplasm and membrane thickness, used by the full shell model. */
+  shell?: CrossoverFitRequest["shell"];
+}
+
+/** The fitted model in words, numbers through the units module. */
+function modelLine(fit: MembraneFit): string {
+  const m = fit.modelUsed;
+  if (m.kind === "closed-form" || !m.cytoplasm || m.membraneThickness === null || m.mediumPermittivity === null) return fit.model;
+  return (
+    `Full single-shell model (first crossover = where Re[K] turns from negative to positive, found by the engine) with cytoplasm ` +
+    `εr ${formatIn("rel", m.cytoplasm.permittivity, 3)} and ${formatIn("S_m", m.cytoplasm.conductivity, 3)}, membrane ${formatIn("nm", m.membraneThickness, 3)} thick, ` +
+    `medium εr ${formatIn("rel", m.mediumPermittivity, 3)}; started from the thin-membrane closed form. ${fit.intervalNote} A model prediction: verify on the bench.`
+  );
 }
 
 function Estimate({ label, unit, e, testId }: { label: string; unit: "uF_cm2" | "S_m2"; e: MembraneFit["capacitance"]; testId: string }) {
@@ -71,7 +84,7 @@ export function FitWorkbench(p: Props) {
     setFit(null); setFitError(null); setSaveMsg(null);
     const r = Number(radiusUm.replace(",", "."));
     try {
-      const result = runCrossoverFit({ csvText: text, dropBadRows: dropBad, radius: toSI("um", r), fitConductance: fitG }).fit;
+      const result = runCrossoverFit({ csvText: text, dropBadRows: dropBad, radius: toSI("um", r), fitConductance: fitG, shell: p.shell }).fit;
       setApplyG(result.conductance.fitted && !result.warnings.some((w) => w.parameter === "conductance" && w.code === "parameter-undetermined"));
       setFit(result);
     } catch (err) {
@@ -187,7 +200,7 @@ export function FitWorkbench(p: Props) {
                 <FitCurveChart fit={fit} />
                 <ResidualsChart fit={fit} />
               </div>
-              <p className="text-xs text-ink-muted">{fit.model}</p>
+              <p className="text-xs text-ink-muted" data-testid="fit-model">{modelLine(fit)}</p>
             </div>
           )}
         </section>

@@ -3,6 +3,7 @@
  * The particles are invented but plausible (demo data): lymphocyte-like cells, viable and membrane-compromised,
  * and a 5 µm polystyrene bead; the populations give those cells a natural spread. SI units throughout.
  */
+import { CELLS_FIT_EXAMPLE, CROSSOVER_FIT_EXAMPLE } from "./fit-docs";
 
 /** A viable lymphocyte-like cell: intact membrane (1 µF/cm² = 0.01 F/m², low conductance) around conductive cytoplasm. */
 export const VIABLE_CELL = {
@@ -123,4 +124,4 @@ export const SENSITIVITY_EXAMPLE: ApiExample = {
 };
 
 /** Every example, in the order the API page shows them. */
-export const API_EXAMPLES: ApiExample[] = [SPECTRA_EXAMPLE, SWEEP_EXAMPLE, WINDOWS_EXAMPLE, SENSITIVITY_EXAMPLE];
+export const API_EXAMPLES: ApiExample[] = [SPECTRA_EXAMPLE, SWEEP_EXAMPLE, WINDOWS_EXAMPLE, SENSITIVITY_EXAMPLE, CROSSOVER_FIT_EXAMPLE, CELLS_FIT_EXAMPLE];

@@ -7,6 +7,7 @@ import { LIMITS, spectraRequestSchema, sweepRequestSchema } from "@/lib/dielectr
 import { PLANNER_LIMITS, windowsRequestSchema } from "@/lib/planner";
 import { SENSITIVITY_EXAMPLE, SPECTRA_EXAMPLE, SWEEP_EXAMPLE, WINDOWS_EXAMPLE, type ApiExample } from "./examples";
 import { sensitivityRequestSchema } from "./windows";
+import { FIT_ROUTE_DOCS } from "./fit-docs";
 
 /** A JSON Schema object (draft 2020-12, as OpenAPI 3.1 uses). */
 export type JsonSchema = Record<string, unknown>;
@@ -207,4 +208,5 @@ export const ROUTE_DOCS: RouteDoc[] = [
     responseSchema: SENSITIVITY_RESPONSE_SCHEMA,
     example: SENSITIVITY_EXAMPLE,
   },
+  ...FIT_ROUTE_DOCS,
 ];

@@ -15,6 +15,10 @@ export type { CellSpectrumRequest, SpectrumKind, FitParameterName } from "./spec
 export { PARAMETER_INFO, DEFAULT_VISCOSITY } from "./spectrum-model";
 export { MIN_FREQUENCIES_PER_SIDE, UNDETERMINED_FACTOR, POOR_FIT_RELATIVE_RMS } from "./spectrum-warnings";
 export type { SpectrumWarning, SpectrumWarningCode } from "./spectrum-warnings";
+export { populationFitRequestSchema } from "./population";
+export type { PopulationFitRequest } from "./population";
+export { crossoverFitRequestSchema } from "./crossover-schema";
+export type { CrossoverFitRequest } from "./crossover-schema";
 export { fitPopulationFromCells, summarisePopulation, flagOutliers, chooseSpread, fitOneCell, checkCells, cellInputSchema, MAX_CELLS, OUTLIER_Z } from "./population";
 export type { CellInput, CellResult, CommonSetup, ParameterSpread, PopulationFit, PopulationOptions } from "./population";
 export { velocityPerReK, reKFromVelocity, velocityFromReK, rotationPerImK, imKFromRotation, rotationFromImK } from "./conversions";
@@ -27,3 +31,6 @@ export { studentTQuantile, studentTCdf } from "./student-t";
 export { exampleCrossoverCsv } from "./example";
 export type { ExampleCsvOptions } from "./example";
 export { FittingInputError, CsvHeaderError, CsvTooLargeError } from "./errors";
+export { parseCellsCsv } from "./cells-csv";
+export type { CellsCsvResult, CellsCsvError } from "./cells-csv";
+export { exampleCellsCsv, EXAMPLE_SETUP, EXAMPLE_TRUTH } from "./cells-example";

@@ -197,3 +197,18 @@ export function fitPopulationFromCells(cells: unknown, options: CommonSetup & Po
   const first = results.find((r) => r.fit)?.fit;
   return { ...summary, model: first?.model ?? "", intervalNote: first?.intervalNote ?? "" };
 }
+
+/** zod schema of a population fit request (POST /api/v1/fits/cells): what the cells share, the cells, and include/exclude lists. */
+export const populationFitRequestSchema = z.object({
+  kind: cellSpectrumRequestSchema.shape.kind,
+  medium: cellSpectrumRequestSchema.shape.medium,
+  field: cellSpectrumRequestSchema.shape.field,
+  particle: cellSpectrumRequestSchema.shape.particle,
+  fit: cellSpectrumRequestSchema.shape.fit,
+  cells: z.array(cellInputSchema, { error: (iss) => `cells must be a list (got ${describeValue(iss.input)})` })
+    .min(1, { error: "cells: at least one cell is needed" })
+    .max(MAX_CELLS, { error: `cells: at most ${MAX_CELLS} cells per fit` }),
+  exclude: z.array(z.string().max(80)).max(MAX_CELLS).optional(),
+  include: z.array(z.string().max(80)).max(MAX_CELLS).optional(),
+});
+export type PopulationFitRequest = z.infer<typeof populationFitRequestSchema>;

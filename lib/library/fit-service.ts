@@ -3,7 +3,7 @@ import { parseOrThrow } from "@/lib/http/zod-issues";
 import { InputError } from "@/lib/errors";
 import { formatIn } from "@/lib/units/lab";
 import type { PopulationContent } from "./populations/content";
-import { runCrossoverFit } from "./fit-run";
+import { runCrossoverFit, shellSettingsOf } from "./fit-run";
 import { getItem, reviseItem, type Actor, type LibraryItem } from "./service";
 
 /** What the fit page sends to save a fit (SI radius). */
@@ -31,7 +31,7 @@ export async function saveFittedPopulation(actor: Actor, id: number, raw: unknow
   const content = item.current.content as PopulationContent;
   if (!content.spec.membrane)
     throw new InputError([{ path: "model", message: `"${content.name}" uses the ${content.spec.model} model, which has no membrane to fit; choose a cell model first.` }]);
-  const { parsed, fit, droppedRows } = runCrossoverFit(input);
+  const { parsed, fit, droppedRows } = runCrossoverFit({ ...input, shell: shellSettingsOf(content.spec) });
   const membrane = {
     ...content.spec.membrane,
     capacitance: { ...content.spec.membrane.capacitance, mean: fit.capacitance.estimate },
@@ -50,7 +50,8 @@ export async function saveFittedPopulation(actor: Actor, id: number, raw: unknow
         : `; G kept at ${formatIn("S_m2", content.spec.membrane.conductance.mean, 3)} (fitted ${formatIn("S_m2", fit.conductance.estimate, 3)} not stored)`
       : ", G held at 0 in the fit (stored G unchanged)") +
     (droppedRows.length ? `; rows left out for errors: ${droppedRows.join(", ")}` : "") +
-    (fit.warnings.length ? `; ${fit.warnings.length} fit warning(s)` : "");
+    (fit.warnings.length ? `; ${fit.warnings.length} fit warning(s)` : "") +
+    `; ${fit.modelUsed.kind === "shell" ? "full single-shell model with this population's cytoplasm and membrane thickness" : "thin-membrane closed form"}; intervals cover measurement noise only`;
   const stored = { ...fit, csvSummary: parsed.summary.text, csvErrors: parsed.errors, droppedRows, options: { radius: input.radius, fitConductance: input.fitConductance, applyConductance: input.applyConductance } };
   return (await reviseItem(
     actor,

@@ -6,6 +6,7 @@ import { requirePageUser } from "@/lib/auth/session";
 import { NotFoundError } from "@/lib/errors";
 import { exampleCrossoverCsv } from "@/lib/fitting";
 import type { PopulationContent } from "@/lib/library/populations/content";
+import { shellSettingsOf } from "@/lib/library/fit-run";
 import { getItem } from "@/lib/library/service";
 import { fromSI, tidy } from "@/lib/units/lab";
 
@@ -31,7 +32,7 @@ export default async function FitPage({ params }: { params: Promise<{ kind: stri
       <p className="text-sm"><Link href={`/library/populations/${item.id}`}>← {item.name}</Link></p>
       <header>
         <h1>Fit membrane parameters: {item.name}</h1>
-        <p className="mt-1 max-w-3xl text-ink-soft">Membrane capacitance and conductance from first crossover frequencies measured at several medium conductivities, by non-linear least squares with 95 % confidence intervals.</p>
+        <p className="mt-1 max-w-3xl text-ink-soft">Membrane capacitance and conductance from first crossover frequencies measured at several medium conductivities, by non-linear least squares on the full single-shell model (this population's cytoplasm and membrane thickness) with 95 % confidence intervals that cover measurement noise only.</p>
       </header>
       {content.spec.membrane ? (
         <FitWorkbench
@@ -42,6 +43,7 @@ export default async function FitPage({ params }: { params: Promise<{ kind: stri
           currentC={content.spec.membrane.capacitance.mean}
           currentG={content.spec.membrane.conductance.mean}
           exampleCsv={exampleCrossoverCsv()}
+          shell={shellSettingsOf(content.spec)}
         />
       ) : (
         <p className="notice">This population uses the {content.spec.model} model, which has no membrane. Change it to a cell model first.</p>
