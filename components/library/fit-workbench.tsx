@@ -134,7 +134,7 @@ export function FitWorkbench(p: Props) {
             </tbody>
           </table>
           <pre className="mt-2 overflow-x-auto rounded-md bg-paper-deep p-3 text-xs" data-testid="example-csv">{p.exampleCsv}</pre>
-          <a href={exampleHref} download="crossover-example.csv">Download this example</a> <span className="text-ink-muted">(generated from the single-shell relation with invented parameters, not measured data)</span>
+          <a href={exampleHref} download="crossover-example.csv">Download this example</a> <span className="text-ink-muted">(generated from the full single-shell model with invented parameters, not measured data)</span>
         </details>
         <label className="field">
           <span>Crossover file (.csv)</span>
@@ -167,7 +167,7 @@ export function FitWorkbench(p: Props) {
       {parsed && (
         <section className="card space-y-3">
           <h2>2. Fit membrane capacitance and conductance</h2>
-          <p className="text-sm text-ink-soft">Model: single-shell first crossover, f = √((σm − rG)(2σm + rG)) / (2π r C). Current values of “{p.name}”: C = {formatIn("uF_cm2", p.currentC, 3)}, G = {formatIn("S_m2", p.currentG, 3)}.</p>
+          <p className="text-sm text-ink-soft">Model: the full single-shell model — the first crossover is where Re[K] turns from negative to positive — started from the thin-membrane closed form f = √((σm − rG)(2σm + rG)) / (2π r C). Current values of “{p.name}”: C = {formatIn("uF_cm2", p.currentC, 3)}, G = {formatIn("S_m2", p.currentG, 3)}.</p>
           <div className="flex flex-wrap items-end gap-4">
             <label className="field">
               <span>Cell radius for rows without one</span>

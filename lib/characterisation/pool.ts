@@ -34,6 +34,7 @@ function getPool(): Piscina<FitTask, CellResult[]> {
   if (!pool) {
     const entry = path.join(process.cwd(), "lib", "characterisation", "fit-worker-entry.mjs");
     pool = new Piscina({ filename: pathToFileURL(entry).href, maxThreads: poolSize(), minThreads: 1, idleTimeout: 60_000 });
+    pool.on("error", (err) => console.error("cell-fit worker pool error", err));
   }
   return pool;
 }

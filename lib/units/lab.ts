@@ -17,7 +17,11 @@ export type Quantity =
   | "surfaceConductance"
   | "temperature"
   | "fraction"
-  | "relative";
+  | "relative"
+  | "velocity"
+  | "angularVelocity"
+  | "viscosity"
+  | "fieldStrength";
 
 /** One unit: its symbol, the quantity and SI unit it belongs to, and SI = value × factor + offset. */
 export interface LabUnit {
@@ -63,6 +67,13 @@ export const LAB_UNITS = {
   ratio: u("", "fraction", "", 1, "fraction"),
   percent: u("%", "fraction", "", 1e-2, "per cent"),
   rel: u("", "relative", "", 1, "relative to vacuum"),
+  um_s: u("µm/s", "velocity", "m/s", 1e-6, "micrometres per second"),
+  m_s: u("m/s", "velocity", "m/s", 1, "metres per second"),
+  rad_s: u("rad/s", "angularVelocity", "rad/s", 1, "radians per second"),
+  mPa_s: u("mPa·s", "viscosity", "Pa·s", 1e-3, "millipascal seconds"),
+  Pa_s: u("Pa·s", "viscosity", "Pa·s", 1, "pascal seconds"),
+  V_m: u("V/m", "fieldStrength", "V/m", 1, "volts per metre"),
+  kV_m: u("kV/m", "fieldStrength", "V/m", 1e3, "kilovolts per metre"),
 } as const satisfies Record<string, LabUnit>;
 
 export type UnitId = keyof typeof LAB_UNITS;
@@ -81,6 +92,10 @@ export const UNITS_BY_QUANTITY: Record<Quantity, readonly UnitId[]> = {
   temperature: ["degC", "K"],
   fraction: ["percent", "ratio"],
   relative: ["rel"],
+  velocity: ["um_s", "m_s"],
+  angularVelocity: ["rad_s"],
+  viscosity: ["mPa_s", "Pa_s"],
+  fieldStrength: ["kV_m", "V_m"],
 };
 
 /**

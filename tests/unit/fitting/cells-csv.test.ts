@@ -58,7 +58,7 @@ describe("example files", () => {
     expect(Math.abs(c.mean / EXAMPLE_TRUTH.membraneCapacitance.mean - 1)).toBeLessThan(0.1);
     expect(Math.abs(s.mean / EXAMPLE_TRUTH.cytoplasmConductivity.mean - 1)).toBeLessThan(0.1);
     expect(pop.includedCount).toBeGreaterThanOrEqual(20);
-  });
+  }, 60_000);
 
   it("the rotation example fits back too", () => {
     const r = parseCellsCsv(exampleCellsCsv("rotation-rate"));
@@ -66,5 +66,5 @@ describe("example files", () => {
     const pop = fitPopulationFromCells(r.cells, { kind: "rotation-rate", medium: EXAMPLE_SETUP.medium, field: { rotatingFieldAmplitude: e0 }, particle: start, fit: ["membraneCapacitance", "cytoplasmConductivity"] });
     const c = pop.spreads.find((s) => s.name === "membraneCapacitance")!;
     expect(Math.abs(c.mean / EXAMPLE_TRUTH.membraneCapacitance.mean - 1)).toBeLessThan(0.1);
-  });
+  }, 60_000);
 });

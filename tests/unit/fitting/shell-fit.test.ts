@@ -69,7 +69,7 @@ describe("fitMembrane with the full shell model (default)", () => {
     expect(coverC).toBeLessThanOrEqual(196);
     expect(coverG).toBeGreaterThanOrEqual(180);
     expect(coverG).toBeLessThanOrEqual(196);
-  });
+  }, 60_000);
 
   it("warns on a narrow conductivity range instead of giving false precision", () => {
     const fit = fitMembrane(shellCrossovers([0.008, 0.009, 0.01, 0.011], truth, settings, 0.01, 3), { radius: truth.radius, cytoplasm: settings.cytoplasm });

@@ -68,7 +68,7 @@ describe("fitCellSpectrum intervals cover the truth at their stated rate", () =>
       expect(n).toBeGreaterThanOrEqual(180);
       expect(n).toBeLessThanOrEqual(196);
     }
-  });
+  }, 60_000);
 });
 
 describe("fitCellSpectrum says what the data cannot tell", () => {

@@ -32,7 +32,7 @@ export default async function FitPage({ params }: { params: Promise<{ kind: stri
       <p className="text-sm"><Link href={`/library/populations/${item.id}`}>← {item.name}</Link></p>
       <header>
         <h1>Fit membrane parameters: {item.name}</h1>
-        <p className="mt-1 max-w-3xl text-ink-soft">Membrane capacitance and conductance from first crossover frequencies measured at several medium conductivities, by non-linear least squares on the full single-shell model (this population's cytoplasm and membrane thickness) with 95 % confidence intervals that cover measurement noise only.</p>
+        <p className="mt-1 max-w-3xl text-ink-soft">Membrane capacitance and conductance from first crossover frequencies measured at several medium conductivities, by non-linear least squares on the full single-shell model (with this population&apos;s cytoplasm and membrane thickness) with 95 % confidence intervals that cover measurement noise only.</p>
       </header>
       {content.spec.membrane ? (
         <FitWorkbench
