@@ -1,3 +1,4 @@
+import { CellFitSummary } from "@/components/characterisation/summary";
 import { formatIn } from "@/lib/units/lab";
 
 interface StoredEstimate {
@@ -8,6 +9,7 @@ interface StoredEstimate {
 
 /** The stored result of a crossover fit, shown on a fitted version. */
 export function FitSummary({ fit, dataFileHref, dataFileName }: { fit: Record<string, unknown>; dataFileHref: string | null; dataFileName: string | null }) {
+  if (fit.kind === "cell-spectra") return <CellFitSummary fit={fit} dataFileHref={dataFileHref} dataFileName={dataFileName} />;
   const c = fit.capacitance as StoredEstimate | undefined;
   const g = fit.conductance as StoredEstimate | undefined;
   const warnings = (fit.warnings as { message: string }[] | undefined) ?? [];

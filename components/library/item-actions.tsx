@@ -17,6 +17,7 @@ export function ItemActions({ kind, id, archived, canFit }: { kind: LibraryKind;
       <div className="flex flex-wrap justify-end gap-2">
         {!archived && <Link className="btn" href={`/library/${kind}/${id}/edit`}>Edit</Link>}
         {!archived && canFit && <Link className="btn-quiet no-underline" href={`/library/${kind}/${id}/fit`}>Fit from crossovers</Link>}
+        {!archived && canFit && <Link className="btn-quiet no-underline" href={`/library/${kind}/${id}/characterise`}>Characterise from measurements</Link>}
         <button type="button" className="btn-quiet" disabled={pending} onClick={() => start(async () => {
           const r = await duplicateItemAction(kind, id);
           setMessage({ ok: r.ok, text: r.message ?? "" });

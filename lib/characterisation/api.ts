@@ -6,7 +6,7 @@
 import { crossoverFitRequestSchema, fitMembrane, populationFitRequestSchema, type MembraneFit } from "@/lib/fitting";
 import { ENGINE_VERSION } from "@/lib/dielectric";
 import { ENGINE_VERSION_HEADER } from "@/lib/api/respond";
-import { readJson } from "@/lib/http/api";
+import { readJson } from "@/lib/http/body";
 import { parseOrThrow } from "@/lib/http/zod-issues";
 import { prepareCellFit, runPreparedFit } from "./pool";
 
