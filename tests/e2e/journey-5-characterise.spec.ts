@@ -20,9 +20,11 @@ test("journey 5: characterise a population from single-cell DEP velocities and u
   await signIn(page, DEMO.developer);
   await page.goto("/library/populations");
   await page.getByRole("link", { name: "Quarry Hill live lymphocytes" }).click();
+  await expect(page.getByTestId("item-name")).toHaveText("Quarry Hill live lymphocytes");
+  const original = page.url();
   await page.getByRole("button", { name: "Duplicate" }).click();
-  await expect(page.getByTestId("item-name")).toContainText("Quarry Hill live lymphocytes");
-  await expect(page).toHaveURL(/\/library\/populations\/\d+$/);
+  await page.waitForURL((u) => /\/library\/populations\/\d+$/.test(u.pathname) && u.href !== original);
+  await expect(page.getByTestId("item-name")).not.toHaveText("Quarry Hill live lymphocytes");
   const name = (await page.getByTestId("item-name").textContent())!.trim();
   expect(name).not.toBe("Quarry Hill live lymphocytes");
   const before = Number((await page.getByText(/· version \d+/).first().textContent())!.match(/version (\d+)/)![1]);
