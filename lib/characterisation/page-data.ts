@@ -2,12 +2,11 @@
  * What the characterisation page needs: the population's current version as the starting particle, the library's
  * devices with their Γ, and the example files.
  */
-import type { Particle } from "@/lib/dielectric";
 import { EXAMPLE_SETUP, exampleCellsCsv, SPECTRUM_KINDS, type SpectrumKind } from "@/lib/fitting";
 import { deviceGradient, type DeviceContent } from "@/lib/library/devices/content";
 import type { PopulationContent } from "@/lib/library/populations/content";
 import { getItem, listPickable } from "@/lib/library/service";
-import { toParticle } from "@/lib/populations/spec";
+import { particleFrom } from "@/lib/planner";
 import { CHARACTERISABLE_MODELS } from "./spec-update";
 
 /**
@@ -26,7 +25,7 @@ export async function characterisationPageData(id: number) {
     id: item.id,
     name: item.name,
     baseVersion: item.currentVersion,
-    particle: ok ? (toParticle("start", content.spec) as Particle) : null,
+    particle: ok ? particleFrom("start", content.spec) : null,
     problem: ok ? null : `This population uses the ${content.spec.model} model; characterising from single-cell spectra needs a single-shell or walled cell model (a membrane and an interior). Change the model first.`,
     devices,
     examples,

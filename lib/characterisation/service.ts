@@ -4,13 +4,12 @@
  * version's provenance ("fitted").
  */
 import { parseCellsCsv, PARAMETER_INFO, type PopulationFit } from "@/lib/fitting";
-import type { Particle } from "@/lib/dielectric";
 import { InputError } from "@/lib/errors";
 import { parseOrThrow } from "@/lib/http/zod-issues";
 import { deviceGradient, type DeviceContent } from "@/lib/library/devices/content";
 import type { PopulationContent } from "@/lib/library/populations/content";
 import { getItem, reviseItem, type Actor, type LibraryItem } from "@/lib/library/service";
-import { toParticle } from "@/lib/populations/spec";
+import { particleFrom } from "@/lib/planner";
 import { formatIn } from "@/lib/units/lab";
 import { resolveField } from "./field";
 import { fitCellsInPool } from "./pool";
@@ -68,7 +67,7 @@ export async function saveCharacterisedPopulation(actor: Actor, id: number, raw:
   const parsed = parseCellsCsv(input.csvText);
   if (parsed.cells.length === 0) throw new InputError([{ path: "file", message: `${parsed.summary} There is no usable cell to fit.` }]);
   const { field, description } = await resolveField(input.device, parsed.kind, libraryDeviceGamma);
-  const particle = toParticle("start", content.spec) as Particle;
+  const particle = particleFrom("start", content.spec);
   const medium = { conductivity: input.medium.conductivity, permittivity: input.medium.permittivity, viscosity: input.medium.viscosity };
   const pop = await fitCellsInPool(parsed.cells, { kind: parsed.kind, medium, field, particle, fit: input.fit }, { exclude: input.exclude, include: input.include });
   if (pop.includedCount < 2) throw new InputError([{ path: "cells", message: `Only ${pop.includedCount} cell(s) are included; a spread needs at least 2. Include more cells or check the setup.` }]);
