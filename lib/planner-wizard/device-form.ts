@@ -109,6 +109,9 @@ export const deviceStepSchema = z
     if (v.geometry === "interdigitated") {
       check("electrodeWidth");
       check("evalHeight");
+      if (Number.isFinite(v.evalHeight) && Number.isFinite(v.channelHeight) && !(v.evalHeight < v.channelHeight)) {
+        ctx.addIssue({ code: "custom", path: ["evalHeight"], message: `${DEVICE_FIELDS.evalHeight.label} (µm): ${v.evalHeight} µm is not inside the channel; enter a height from 0 up to below the channel height (${v.channelHeight} µm).` });
+      }
     } else {
       check("gamma");
       if (v.gammaSource.trim().length < 3) ctx.addIssue({ code: "custom", path: ["gammaSource"], message: "Source of Γ: say where the value comes from (simulation, file, date), at least 3 characters." });

@@ -82,3 +82,13 @@ describe("planner request from the wizard's steps", () => {
     expect(completedSteps({ populations: { target: live, other: dead }, buffer: defaultBuffer() })).toEqual(["populations", "buffer"]);
   });
 });
+
+describe("evaluation height inside the channel", () => {
+  it("the device step refuses 500 µm above the electrodes in a 50 µm channel, naming the field, the value and the channel height", () => {
+    const bad = deviceStepSchema.safeParse({ ...defaultDevice(), evalHeight: 500, channelHeight: 50 });
+    expect(bad.success).toBe(false);
+    const issue = bad.error!.issues.find((i) => i.path[0] === "evalHeight")!;
+    expect(issue.message).toBe("Height above the electrodes where cells are judged (µm): 500 µm is not inside the channel; enter a height from 0 up to below the channel height (50 µm).");
+    expect(deviceStepSchema.safeParse({ ...defaultDevice(), evalHeight: 40, channelHeight: 50 }).success).toBe(true);
+  });
+});
