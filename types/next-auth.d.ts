@@ -10,5 +10,7 @@ declare module "next-auth/jwt" {
   interface JWT {
     uid?: number;
     role?: string;
+    /** Server-side session id (lib/auth/sessions.ts); never copied into the client-visible session. */
+    sid?: string;
   }
 }

@@ -8,7 +8,7 @@ import { useForm } from "react-hook-form";
 import { signInSchema, type SignInInput } from "@/lib/users/schemas";
 import { useHydrated } from "@/components/forms/use-hydrated";
 
-/** E-mail and password form; a refusal is shown in words, never as a crash. */
+/** E-mail and password form; a refusal is shown in words, never as a crash. `callbackUrl` is a checked same-origin path. */
 export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
   const hydrated = useHydrated();
   const router = useRouter();
@@ -21,9 +21,14 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
 
   async function onSubmit(values: SignInInput) {
     setFailure(null);
-    const result = await signIn("credentials", { ...values, redirect: false });
+    const result = await signIn("credentials", { ...values, callbackUrl, redirect: false });
     if (!result || result.error) {
-      setFailure("That e-mail and password do not match an active account. Check both, or ask your admin.");
+      // next-auth says "CredentialsSignin" for a wrong password; any other text is our own (when to try again).
+      setFailure(
+        !result || result.error === "CredentialsSignin"
+          ? "That e-mail and password do not match an active account. Check both, or ask your admin."
+          : result.error,
+      );
       return;
     }
     router.push(callbackUrl);

@@ -3,8 +3,11 @@ import { formatDateTime } from "@/lib/format/time";
 import { formatConductivity, formatFrequency } from "@/lib/format/units";
 import type { QueueItem } from "@/lib/protocols/queries";
 
-/** Versions waiting for QA, oldest first. The viewer's own work is marked and has no sign-off button. */
-export function QueueTable({ items }: { items: QueueItem[] }) {
+/**
+ * Versions waiting for QA, oldest first. The viewer's own work is marked and has no sign-off button; viewers who do
+ * not sign (supervisors) get the list read-only.
+ */
+export function QueueTable({ items, canSign }: { items: QueueItem[]; canSign: boolean }) {
   if (items.length === 0) return <p className="text-sm text-ink-muted">Nothing is waiting for review.</p>;
   return (
     <table data-testid="review-queue">
@@ -21,13 +24,13 @@ export function QueueTable({ items }: { items: QueueItem[] }) {
               <td className="text-ink-soft">{s ? `${formatFrequency(s.frequency)} · ${formatConductivity(s.conductivity)}` : "—"}</td>
               <td>
                 {authorName}
-                {ownWork && <span className="pill ml-2 border-caution/40 bg-caution-light text-caution" data-testid="own-work">you authored this</span>}
+                {canSign && ownWork && <span className="pill ml-2 border-caution/40 bg-caution-light text-caution" data-testid="own-work">you authored this</span>}
                 {!integrity.ok && <span className="pill ml-2 border-danger/40 bg-danger-light text-danger">hash mismatch</span>}
               </td>
               <td className="whitespace-nowrap text-right">
                 <Link href={href} className="btn-quiet mr-2">Open</Link>
                 {v.number > 1 && <Link href={`${href}/diff`} className="btn-quiet mr-2">Compare</Link>}
-                {!ownWork && <Link href={`${href}#sign`} className="btn">Sign off…</Link>}
+                {canSign && !ownWork && <Link href={`${href}#sign`} className="btn">Sign off…</Link>}
               </td>
             </tr>
           );

@@ -7,6 +7,8 @@ import * as m005 from "./20261201_005_bench_runs";
 import * as m006 from "./20261201_006_wizard_drafts";
 import * as m500 from "./20261202_500_outbox_claims";
 import * as m600 from "./20261202_600_stored_files";
+import * as m300 from "./20261202_300_auth_attempts";
+import * as m310 from "./20261202_310_user_sessions";
 
 /**
  * Every migration, in order. Adding one: create `db/migrations/<date>_<nnn>_<name>.ts` exporting `up` and `down`,
@@ -21,6 +23,8 @@ const MIGRATIONS: [string, Knex.Migration][] = [
   ["20261201_006_wizard_drafts", m006],
   ["20261202_500_outbox_claims", m500],
   ["20261202_600_stored_files", m600],
+  ["20261202_300_auth_attempts", m300],
+  ["20261202_310_user_sessions", m310],
 ];
 
 /** Knex migration source backed by the list above. */

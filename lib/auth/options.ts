@@ -1,32 +1,57 @@
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { isRole } from "./roles";
+import { signInErrorText, signInWithPassword } from "./password-checks";
+import { authConfig } from "./config";
+import { safeRedirectUrl } from "./redirect";
+import { endSession, startSession } from "./sessions";
+import { clientAddress, type HeaderSource } from "@/lib/http/client-address";
 import { signInSchema } from "@/lib/users/schemas";
-import { verifyCredentials } from "@/lib/users/service";
 
-/** next-auth configuration: credentials against the users table, JWT sessions carrying id and role. */
+/**
+ * next-auth configuration: credentials against the users table under the attempt limits; the JWT carries a
+ * server-side session id (lib/auth/sessions.ts) that every request checks and sign-out ends; redirects only ever go to
+ * a path on our own origin. The cookie lives no longer than the session's absolute lifetime.
+ */
 export const authOptions: NextAuthOptions = {
-  session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
+  session: { strategy: "jwt", maxAge: authConfig().SESSION_MAX_HOURS * 60 * 60 },
   pages: { signIn: "/login" },
   secret: process.env.NEXTAUTH_SECRET,
   providers: [
     CredentialsProvider({
       name: "Email and password",
       credentials: { email: { label: "Email", type: "email" }, password: { label: "Password", type: "password" } },
-      async authorize(credentials) {
+      async authorize(credentials, req) {
         const parsed = signInSchema.safeParse(credentials);
         if (!parsed.success) return null;
-        const user = await verifyCredentials(parsed.data.email, parsed.data.password);
-        if (!user) return null;
-        return { id: String(user.id), email: user.email, name: user.name, role: user.role };
+        const headers = (req?.headers ?? {}) as Record<string, string | undefined>;
+        const address = clientAddress(headers as HeaderSource);
+        try {
+          const user = await signInWithPassword(parsed.data.email, parsed.data.password, address);
+          if (!user) return null;
+          const sid = await startSession(user, address, headers["user-agent"] ?? null);
+          return { id: String(user.id), email: user.email, name: user.name, role: user.role, sid };
+        } catch (err) {
+          // next-auth hands this text to the form as `error`; only our own words ever get there.
+          throw new Error(signInErrorText(err));
+        }
       },
     }),
   ],
+  events: {
+    async signOut({ token }) {
+      if (typeof token?.sid === "string") await endSession(token.sid);
+    },
+  },
   callbacks: {
+    redirect({ url, baseUrl }) {
+      return safeRedirectUrl(url, baseUrl);
+    },
     async jwt({ token, user }) {
       if (user) {
         token.uid = Number(user.id);
         token.role = (user as { role?: string }).role;
+        token.sid = (user as { sid?: string }).sid;
       }
       return token;
     },

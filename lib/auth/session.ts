@@ -1,20 +1,41 @@
-import { getServerSession } from "next-auth";
+import { getToken } from "next-auth/jwt";
+import { cookies } from "next/headers";
 import { forbidden, redirect } from "next/navigation";
 import { authOptions } from "./options";
 import { can, type Capability } from "./roles";
-import { findUserById, type User } from "@/lib/users/repo";
+import { resolveSession } from "./sessions";
+import type { User } from "@/lib/users/repo";
 import { ForbiddenError, UnauthenticatedError } from "@/lib/errors";
 
+/** Whether next-auth names its cookies with the `__Secure-` prefix (https base URL). */
+function secureCookies(): boolean {
+  return authOptions.useSecureCookies ?? (process.env.NEXTAUTH_URL ?? "").startsWith("https://");
+}
+
 /**
- * The signed-in user, re-read from the database so a deactivation or role change takes effect at once; null if none.
+ * The session id inside the request's session cookie (the JWT is decrypted with NEXTAUTH_SECRET); null if none.
+ * Read from the cookie only, never from an Authorization header (those are API tokens).
+ * @example const sid = await currentSessionId();
+ */
+export async function currentSessionId(): Promise<string | null> {
+  const store = await cookies();
+  const token = await getToken({
+    req: { cookies: Object.fromEntries(store.getAll().map((c) => [c.name, c.value])), headers: {} } as never,
+    secret: authOptions.secret,
+    secureCookie: secureCookies(),
+  });
+  return typeof token?.sid === "string" ? token.sid : null;
+}
+
+/**
+ * The signed-in user of a live server-side session (lib/auth/sessions.ts), re-read with the session so sign-out,
+ * time-outs, deactivation and role changes take effect at once; null if none.
  * @example const user = await currentUser();
  */
 export async function currentUser(): Promise<User | null> {
-  const session = await getServerSession(authOptions);
-  const id = session?.user?.id;
-  if (typeof id !== "number") return null;
-  const user = await findUserById(id);
-  return user && user.active ? user : null;
+  const sid = await currentSessionId();
+  if (!sid) return null;
+  return (await resolveSession(sid)).user;
 }
 
 /**

@@ -1,5 +1,4 @@
-import { getServerSession } from "next-auth";
-import { authOptions } from "@/lib/auth/options";
+import { currentUser } from "@/lib/auth/session";
 import { can, type Capability } from "@/lib/auth/roles";
 import { DomainError, ForbiddenError, InputError, UnauthenticatedError } from "@/lib/errors";
 import { enforceRateLimit, findLiveToken, touchTokenLater } from "@/lib/tokens/service";
@@ -29,9 +28,8 @@ export async function authenticate(req: Request, capability: Capability): Promis
     touchTokenLater(token.id);
     caller = { user, tokenId: token.id };
   } else {
-    const session = await getServerSession(authOptions);
-    const user = typeof session?.user?.id === "number" ? await findUserById(session.user.id) : null;
-    if (!user || !user.active) throw new UnauthenticatedError();
+    const user = await currentUser();
+    if (!user) throw new UnauthenticatedError();
     caller = { user, tokenId: null };
   }
   if (!can(caller.user.role, capability)) {

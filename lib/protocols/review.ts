@@ -2,7 +2,7 @@ import { db } from "@/db/knex";
 import { recordAudit } from "@/lib/audit/repo";
 import { ConflictError, ForbiddenError, InputError } from "@/lib/errors";
 import { parseOrThrow } from "@/lib/http/zod-issues";
-import { verifyPassword } from "@/lib/users/service";
+import { checkOwnPassword } from "@/lib/auth/password-checks";
 import type { Actor } from "./guard";
 import { lockForStep } from "./guard";
 import { checkIntegrity } from "./integrity";
@@ -42,7 +42,7 @@ export async function returnVersion(actor: Actor, raw: unknown): Promise<Protoco
 }
 
 /**
- * Electronic signature: the reviewer's password is checked again, the signature (signer, role, meaning, time, content
+ * Electronic signature: the reviewer's password is checked again (under the attempt limits, audited when wrong), the signature (signer, role, meaning, time, content
  * hash) is stored, the version becomes approved, and the previously approved version of the protocol becomes
  * superseded — one transaction, with the audit rows and the sign-off e-mails (every supervisor and the author).
  * Two reviewers approving at once: the row lock serialises them and the second gets "already approved by …".
@@ -52,7 +52,7 @@ export async function approveVersion(actor: Actor, raw: unknown): Promise<{ vers
   const input = parseOrThrow(approveSchema, raw);
   const early = denial(actor, "approve", { state: "in_review", authorId: -1, editorIds: [] });
   if (early) throw new ForbiddenError(early);
-  if (!(await verifyPassword(actor.id, input.password))) {
+  if (!(await checkOwnPassword(actor, input.password, "signature", { type: "protocol_version", id: input.versionId }))) {
     throw new InputError([{ path: "password", message: "Password: this is not your current password; nothing was signed." }]);
   }
   return db.transaction(async (trx) => {

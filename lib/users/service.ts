@@ -1,7 +1,9 @@
+import { randomBytes } from "node:crypto";
 import bcrypt from "bcryptjs";
 import { db } from "@/db/knex";
 import { recordAudit } from "@/lib/audit/repo";
 import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
+import { endUserSessions } from "@/lib/auth/sessions";
 import { ConflictError, InputError, NotFoundError } from "@/lib/errors";
 import { parseOrThrow } from "@/lib/http/zod-issues";
 import { createUserSchema } from "./schemas";
@@ -50,7 +52,8 @@ export async function createUser(actor: Actor | null, raw: unknown): Promise<Use
 }
 
 /**
- * Activates or deactivates an account (a deactivated user cannot sign in). An admin cannot deactivate themselves.
+ * Activates or deactivates an account (a deactivated user cannot sign in, and their open sessions end). An admin
+ * cannot deactivate themselves.
  * @example await setUserActive(admin, 7, false);
  */
 export async function setUserActive(actor: Actor, userId: number, active: boolean): Promise<User> {
@@ -59,6 +62,7 @@ export async function setUserActive(actor: Actor, userId: number, active: boolea
     const before = await repo.findUserById(userId, trx);
     if (!before) throw new NotFoundError(`No user with id ${userId}.`);
     await repo.updateUser(trx, userId, { active });
+    if (!active) await endUserSessions(trx, userId, "deactivated");
     await recordAudit(trx, {
       actor,
       action: active ? "user.activate" : "user.deactivate",
@@ -95,14 +99,40 @@ export async function setUserRole(actor: Actor, userId: number, role: Role): Pro
   });
 }
 
+/** A bcrypt hash of a random string, compared against when there is no usable hash so every answer takes as long. */
+let decoyHash: string | null = null;
+function decoy(): string {
+  decoyHash ??= bcrypt.hashSync(randomBytes(16).toString("hex"), BCRYPT_COST);
+  return decoyHash;
+}
+
+/** Whether a stored hash can match any password (accounts waiting for their set-password link have none). */
+export function isUsableHash(hash: string | null | undefined): hash is string {
+  return typeof hash === "string" && /^\$2[aby]\$\d\d\$/.test(hash);
+}
+
 /**
- * Checks an e-mail and password; returns the user when they match an active account, else null.
+ * Compares a password with a stored hash in constant work: an unusable or missing hash still costs one bcrypt
+ * comparison (against a decoy) and answers false.
+ * @example await passwordMatches("secret", row.password_hash)
+ */
+export async function passwordMatches(password: string, hash: string | null | undefined): Promise<boolean> {
+  if (!isUsableHash(hash)) {
+    await bcrypt.compare(password, decoy());
+    return false;
+  }
+  return bcrypt.compare(password, hash);
+}
+
+/**
+ * Checks an e-mail and password; returns the user when they match an active account, else null. Unknown and
+ * deactivated accounts take as long to refuse as a wrong password (no account enumeration by timing).
  * @example const user = await verifyCredentials("dana.dev@example.test", "…");
  */
 export async function verifyCredentials(email: string, password: string): Promise<User | null> {
   const found = await repo.findCredentialsByEmail(email);
-  if (!found || !found.user.active) return null;
-  return (await bcrypt.compare(password, found.passwordHash)) ? found.user : null;
+  const ok = await passwordMatches(password, found?.passwordHash);
+  return ok && found && found.user.active ? found.user : null;
 }
 
 /**
@@ -110,6 +140,5 @@ export async function verifyCredentials(email: string, password: string): Promis
  * @example if (!(await verifyPassword(user.id, pw))) throw new InputError([...]);
  */
 export async function verifyPassword(userId: number, password: string): Promise<boolean> {
-  const hash = await repo.findPasswordHash(userId);
-  return hash !== null && bcrypt.compare(password, hash);
+  return passwordMatches(password, await repo.findPasswordHash(userId));
 }

@@ -5,7 +5,7 @@ const EXPECTED_NAV: Record<keyof typeof DEMO, { sees: string[]; hidden: string[]
   developer: { sees: ["Planner", "Protocols", "Libraries", "API"], hidden: ["Users", "Review queue", "Bench"] },
   reviewer: { sees: ["Review queue", "Protocols", "Audit trail"], hidden: ["Planner", "Users", "Bench"] },
   technician: { sees: ["Bench"], hidden: ["Planner", "Protocols", "Users", "Review queue", "Audit trail"] },
-  supervisor: { sees: ["Protocols", "Audit trail", "Mail"], hidden: ["Planner", "Users", "Review queue"] },
+  supervisor: { sees: ["Protocols", "Review queue", "Bench", "Audit trail", "Mail"], hidden: ["Planner", "Users"] },
   admin: { sees: ["Users", "Audit trail"], hidden: ["Planner", "Review queue", "Bench", "Protocols"] },
 };
 

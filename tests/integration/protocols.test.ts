@@ -122,7 +122,7 @@ describe("protocol versions against MariaDB", () => {
     const actions = (await listAuditEvents({ entityType: "protocol_version", entityId: String(v1.id) })).map((e) => e.action).reverse();
     expect(actions).toEqual([
       "protocol_version.create", "protocol_version.submit", "protocol_version.return", "protocol_version.reopen",
-      "protocol_version.edit", "protocol_version.submit", "protocol_version.approve",
+      "protocol_version.edit", "protocol_version.submit", "signature.password_failed", "protocol_version.approve",
     ]);
     const view = await getVersionView(sam, protocol.id, 1);
     expect(view.comments.map((c) => [c.kind, c.authorName])).toEqual([["return", "quinn qa"]]);

@@ -1,12 +1,13 @@
 import type { Metadata } from "next";
 import { BenchList } from "@/components/bench/bench-list";
+import { can } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { listCurrentApproved } from "@/lib/protocols/queries";
 
 export const metadata: Metadata = { title: "Bench" };
 
 export default async function BenchPage() {
-  await requirePageUser("run.record");
+  const user = await requirePageUser("bench.read");
   const current = await listCurrentApproved();
   const items = current.map(({ protocol, version, signatures, integrity }) => {
     const last = signatures[signatures.length - 1];
@@ -25,7 +26,11 @@ export default async function BenchPage() {
     <div className="max-w-5xl space-y-6">
       <header>
         <h1>Current protocols</h1>
-        <p className="mt-1 text-ink-soft">Approved, current versions only. Open one to print its bench sheet and record a run.</p>
+        <p className="mt-1 text-ink-soft">
+          {can(user.role, "run.record")
+            ? "Approved, current versions only. Open one to print its bench sheet and record a run."
+            : "Approved, current versions only, read-only: technicians record the runs."}
+        </p>
       </header>
       <section className="card">
         <BenchList items={items} />

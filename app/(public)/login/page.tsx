@@ -2,14 +2,15 @@ import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { SignInForm } from "@/components/auth/sign-in-form";
 import { Wordmark } from "@/components/layout/wordmark";
+import { safeRedirectPath } from "@/lib/auth/redirect";
 import { currentUser } from "@/lib/auth/session";
 
 export const metadata: Metadata = { title: "Sign in" };
 
-export default async function LoginPage({ searchParams }: { searchParams: Promise<{ callbackUrl?: string }> }) {
+export default async function LoginPage({ searchParams }: { searchParams: Promise<{ callbackUrl?: string | string[] }> }) {
   if (await currentUser()) redirect("/home");
   const { callbackUrl } = await searchParams;
-  const safeCallback = callbackUrl && callbackUrl.startsWith("/") && !callbackUrl.startsWith("//") ? callbackUrl : "/home";
+  const safeCallback = safeRedirectPath(callbackUrl, process.env.APP_BASE_URL ?? process.env.NEXTAUTH_URL ?? "http://127.0.0.1:3000");
   return (
     <main className="mx-auto flex min-h-screen max-w-4xl flex-col items-center justify-center gap-10 px-6 md:flex-row md:items-center">
       <section className="flex max-w-sm flex-col justify-center gap-4">
