@@ -29,7 +29,7 @@ export function NewUserForm() {
       setStatus({ ok: false, text: result.message });
       return;
     }
-    reset({ role: "technician", email: "", name: "", password: "" });
+    reset({ role: "technician", email: "", name: "" });
     setStatus({ ok: true, text: result.message ?? "Created." });
   }
 
@@ -52,12 +52,9 @@ export function NewUserForm() {
         </select>
         {errors.role && <p className="field-error">{errors.role.message}</p>}
       </label>
-      <label className="field">
-        <span>Initial password</span>
-        <input className="input" type="password" autoComplete="new-password" {...register("password")} />
-        <p className="hint">At least 12 characters. Share it privately.</p>
-        {errors.password && <p className="field-error">{errors.password.message}</p>}
-      </label>
+      <p className="hint self-end">
+        You do not choose the password: the new user gets an e-mail with a one-time link to choose their own.
+      </p>
       <div className="sm:col-span-2 flex items-center gap-3">
         <button className="btn" type="submit" disabled={!hydrated || isSubmitting}>Create account</button>
         {status && <p className={`text-sm ${status.ok ? "text-moss-dark" : "text-danger"}`} role="status">{status.text}</p>}

@@ -1,6 +1,7 @@
 import { plainTextOf, subjectOf } from "@/lib/format/mime";
 import { formatDateTime } from "@/lib/format/time";
 import type { CapturedMail } from "@/lib/mail/sink";
+import { redactPasswordLinks } from "@/lib/users/link-redaction";
 
 /** Messages the local SMTP sink received (development and test only), newest first, with the plain-text body. */
 export function CapturedList({ messages }: { messages: CapturedMail[] }) {
@@ -15,7 +16,7 @@ export function CapturedList({ messages }: { messages: CapturedMail[] }) {
               <span className="text-ink-muted">to {m.to.join(", ")}</span>
               <span className="text-ink-muted">{formatDateTime(new Date(m.receivedAt))}</span>
             </summary>
-            <pre className="whitespace-pre-wrap border-t border-paper-line bg-paper/60 p-3 text-xs">{plainTextOf(m.raw)}</pre>
+            <pre className="whitespace-pre-wrap border-t border-paper-line bg-paper/60 p-3 text-xs">{redactPasswordLinks(plainTextOf(m.raw))}</pre>
           </details>
         </li>
       ))}

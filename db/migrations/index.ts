@@ -9,6 +9,7 @@ import * as m500 from "./20261202_500_outbox_claims";
 import * as m600 from "./20261202_600_stored_files";
 import * as m300 from "./20261202_300_auth_attempts";
 import * as m310 from "./20261202_310_user_sessions";
+import * as m320 from "./20261202_320_password_links";
 
 /**
  * Every migration, in order. Adding one: create `db/migrations/<date>_<nnn>_<name>.ts` exporting `up` and `down`,
@@ -25,6 +26,7 @@ const MIGRATIONS: [string, Knex.Migration][] = [
   ["20261202_600_stored_files", m600],
   ["20261202_300_auth_attempts", m300],
   ["20261202_310_user_sessions", m310],
+  ["20261202_320_password_links", m320],
 ];
 
 /** Knex migration source backed by the list above. */

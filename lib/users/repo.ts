@@ -71,6 +71,11 @@ export async function insertUser(
   return Number(id);
 }
 
+/** Replaces a user's password hash (only the owner's own set, reset or change reaches this). */
+export async function setPasswordHash(conn: Knex, id: number, passwordHash: string): Promise<void> {
+  await conn("users").where({ id }).update({ password_hash: passwordHash, updated_at: conn.fn.now(3) });
+}
+
 /** Updates role and/or active flag. */
 export async function updateUser(conn: Knex, id: number, patch: { role?: Role; active?: boolean }): Promise<void> {
   await conn("users").where({ id }).update({ ...patch, updated_at: conn.fn.now(3) });

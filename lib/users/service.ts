@@ -6,7 +6,8 @@ import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
 import { endUserSessions } from "@/lib/auth/sessions";
 import { ConflictError, InputError, NotFoundError } from "@/lib/errors";
 import { parseOrThrow } from "@/lib/http/zod-issues";
-import { createUserSchema } from "./schemas";
+import { issuePasswordLink } from "./passwords";
+import { createUserSchema, systemUserSchema } from "./schemas";
 import * as repo from "./repo";
 import type { User } from "./repo";
 
@@ -27,13 +28,21 @@ export function hashPassword(password: string): Promise<string> {
   return bcrypt.hash(password, BCRYPT_COST);
 }
 
+/** Stored for an account whose owner has not chosen a password yet: no bcrypt hash, so nothing matches it. */
+const NO_PASSWORD_YET = "!awaiting-set-password-link";
+
 /**
- * Creates a user; a duplicate e-mail is refused with an InputError on `email`.
- * @example const user = await createUser(admin, { email: "a@lab.org", name: "A", role: "technician", password: "…12 chars…" });
+ * Creates a user; a duplicate e-mail is refused with an InputError on `email`. An admin (`actor`) never chooses the
+ * password: the new user gets a one-time set-password link by e-mail, queued in the same transaction. Only the
+ * system (`actor` null: demo seed, tests) may give a password at creation.
+ * @example const user = await createUser(admin, { email: "a@lab.org", name: "A", role: "technician" });
  */
 export async function createUser(actor: Actor | null, raw: unknown): Promise<User> {
-  const input = parseOrThrow(createUserSchema, raw);
-  const passwordHash = await hashPassword(input.password);
+  if (actor && raw && typeof raw === "object" && "password" in raw) {
+    throw new InputError([{ path: "password", message: "Password: an admin cannot choose another person's password; the new user gets a link to choose it." }]);
+  }
+  const input = actor ? { ...parseOrThrow(createUserSchema, raw), password: null } : parseOrThrow(systemUserSchema, raw);
+  const passwordHash = input.password === null ? NO_PASSWORD_YET : await hashPassword(input.password);
   return db.transaction(async (trx) => {
     if (await repo.emailTaken(input.email, trx)) {
       throw new InputError([{ path: "email", message: `Email: ${input.email} already has an account.` }]);
@@ -45,8 +54,9 @@ export async function createUser(actor: Actor | null, raw: unknown): Promise<Use
       entityType: "user",
       entityId: id,
       summary: `Created ${input.email} as ${ROLE_LABELS[input.role]}`,
-      after: { email: input.email, name: input.name, role: input.role, active: true },
+      after: { email: input.email, name: input.name, role: input.role, active: true, passwordBy: input.password === null ? "e-mailed link" : "system" },
     });
+    if (input.password === null) await issuePasswordLink(trx, { id, email: input.email, name: input.name }, "setup", actor?.id ?? null);
     return (await repo.findUserById(id, trx))!;
   });
 }

@@ -35,9 +35,16 @@ test("a same-origin callbackUrl is kept", async ({ page }) => {
   await expect(page).toHaveURL(/\/settings$/);
 });
 
-test("next-auth answers a malformed or foreign callbackUrl without a server error", async ({ request, baseURL }) => {
-  const signInPage = await request.get(`/api/auth/signin?callbackUrl=${encodeURIComponent("http://[::1")}`, { maxRedirects: 0 });
-  expect(signInPage.status()).toBeLessThan(500);
+test("next-auth answers a malformed or foreign callbackUrl without a server error", async ({ request, baseURL, playwright }) => {
+  for (const bad of ["http://[::1", "javascript:alert(1)", "//evil.example"]) {
+    const res = await request.get(`/api/auth/signin?callbackUrl=${encodeURIComponent(bad)}`, { maxRedirects: 0 });
+    expect(res.status(), bad).toBeLessThan(500);
+    expect(res.headers().location ?? "", bad).not.toContain("evil.example");
+  }
+  const withBadCookie = await playwright.request.newContext({ baseURL, extraHTTPHeaders: { cookie: "next-auth.callback-url=http%3A%2F%2F%5B%3A%3A1" } });
+  const session = await withBadCookie.get("/api/auth/session", { maxRedirects: 0 });
+  expect(session.status()).toBeLessThan(500);
+  await withBadCookie.dispose();
   const { csrfToken } = await (await request.get("/api/auth/csrf")).json();
   for (const callbackUrl of ["http://[::1", "/\\evil.example/", "https://evil.example/"]) {
     const res = await request.post("/api/auth/callback/credentials", {

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { ChangePasswordForm } from "@/components/settings/change-password-form";
 import { TokenPanel } from "@/components/settings/token-panel";
 import { can, ROLE_LABELS } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
@@ -15,6 +16,11 @@ export default async function SettingsPage() {
         <h1>Settings</h1>
         <p className="mt-1 text-ink-soft">{user.name} · {user.email} · {ROLE_LABELS[user.role]}</p>
       </header>
+      <section className="card">
+        <h2 className="mb-1">Password</h2>
+        <p className="mb-3 text-sm text-ink-soft">Only you choose your password. Changing it signs out your other sessions and e-mails you a notice.</p>
+        <ChangePasswordForm />
+      </section>
       {can(user.role, "api.compute") ? (
         <TokenPanel
           tokens={tokens.map((t) => ({

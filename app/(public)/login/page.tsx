@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { redirect } from "next/navigation";
 import { SignInForm } from "@/components/auth/sign-in-form";
 import { Wordmark } from "@/components/layout/wordmark";
@@ -27,6 +28,7 @@ export default async function LoginPage({ searchParams }: { searchParams: Promis
       <section className="card w-full max-w-sm">
         <h1 className="mb-4">Sign in</h1>
         <SignInForm callbackUrl={safeCallback} />
+        <p className="mt-4 text-sm"><Link href="/login/reset">Forgot your password?</Link></p>
       </section>
     </main>
   );
