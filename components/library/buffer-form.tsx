@@ -6,7 +6,7 @@ import { useState } from "react";
 import { useFieldArray, useForm } from "react-hook-form";
 import { saveLibraryItemAction } from "@/lib/library/actions";
 import { ADDITION_KINDS, additionLabel, bufferFormSchema, isSalt, predictRecipe, type BufferForm as FormValues } from "@/lib/library/buffers/content";
-import { readNumber } from "@/lib/library/form-numbers";
+import { readNumber } from "@/lib/units/lab-fields";
 import { formatIn, toSI } from "@/lib/units/lab";
 import { NumberField, SubmitRow } from "./form-bits";
 import { applyServerErrors } from "./save-result";

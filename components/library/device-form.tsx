@@ -6,7 +6,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { saveLibraryItemAction } from "@/lib/library/actions";
 import { deviceFormSchema, deviceGradient, GEOMETRY_LABELS, GEOMETRY_KINDS, type DeviceForm as FormValues } from "@/lib/library/devices/content";
-import { readNumber } from "@/lib/library/form-numbers";
+import { readNumber } from "@/lib/units/lab-fields";
 import { formatIn, toSI } from "@/lib/units/lab";
 import { NumberField, SubmitRow } from "./form-bits";
 import { applyServerErrors } from "./save-result";

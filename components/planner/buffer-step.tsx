@@ -5,8 +5,8 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { formatConductivity, sig } from "@/lib/charts/format";
-import { ADDITION_KINDS, additionUnitLabel, BUFFER_FIELDS, bufferChoice, bufferStepSchema, libraryBufferToStep, predictRecipe, type BufferStepValues, type LibraryBufferContent } from "@/lib/planner-wizard/buffer-form";
-import { labelWithUnit, rangeInWords } from "@/lib/planner-wizard/lab-number";
+import { ADDITION_KINDS, additionUnitLabel, BUFFER_STEP_FIELDS, bufferChoice, bufferStepSchema, libraryBufferToStep, predictRecipe, type BufferStepValues, type LibraryBufferContent } from "@/lib/planner-wizard/buffer-form";
+import { labelWithUnit, rangeInWords } from "@/lib/units/lab-fields";
 import { errorAt, NumField } from "@/components/forms/num-field";
 import { StepFooter } from "./step-footer";
 import { useAutosave } from "./use-autosave";
@@ -28,8 +28,8 @@ export function BufferStep({ draftId, initial, library }: { draftId: number; ini
   const prediction = values.mode === "recipe" ? predictRecipe(values) : null;
   const valid = bufferStepSchema.safeParse(values).success;
   const choice = valid ? bufferChoice(values) : null;
-  const num = (key: keyof typeof BUFFER_FIELDS, extra?: string) => (
-    <NumField id={`buffer-${key}`} label={labelWithUnit(BUFFER_FIELDS[key])} registration={register(key, { valueAsNumber: true })} error={errorAt(errors, key)} hint={`${rangeInWords(BUFFER_FIELDS[key])}${extra ? `. ${extra}` : ""}`} />
+  const num = (key: Exclude<keyof typeof BUFFER_STEP_FIELDS, "perLitre">, extra?: string, id = `buffer-${key}`) => (
+    <NumField id={id} label={labelWithUnit(BUFFER_STEP_FIELDS[key])} registration={register(key, { valueAsNumber: true })} error={errorAt(errors, key)} hint={`${rangeInWords(BUFFER_STEP_FIELDS[key])}${extra ? `. ${extra}` : ""}`} step={BUFFER_STEP_FIELDS[key].unit === "minute" ? 1 : "any"} />
   );
 
   async function onValid() {
@@ -75,10 +75,10 @@ export function BufferStep({ draftId, initial, library }: { draftId: number; ini
             <fieldset className="space-y-3 rounded-md border border-paper-line p-3">
               <legend className="px-1 text-sm font-semibold">Recipe</legend>
               <div className="grid gap-3 sm:grid-cols-2">
-                <NumField id="buffer-volumeMl" label="Batch volume of sugar base (mL)" registration={register("volumeMl", { valueAsNumber: true })} error={errorAt(errors, "volumeMl")} hint="between 1 and 100000 mL" />
+                {num("volumeMl")}
                 {num("temperatureC", "The prediction is also given at this temperature, for checking with a meter")}
-                <NumField id="buffer-sucrose" label="Sucrose (% w/v)" registration={register("sucrosePercentWV", { valueAsNumber: true })} error={errorAt(errors, "sucrosePercentWV")} hint="between 0 and 30 % w/v; ≈ 8.5 % with 0.3 % glucose is isotonic" />
-                <NumField id="buffer-glucose" label="Glucose (% w/v)" registration={register("glucosePercentWV", { valueAsNumber: true })} error={errorAt(errors, "glucosePercentWV")} hint="between 0 and 30 % w/v" />
+                {num("sucrosePercentWV", BUFFER_STEP_FIELDS.sucrosePercentWV.help, "buffer-sucrose")}
+                {num("glucosePercentWV", undefined, "buffer-glucose")}
               </div>
               <div>
                 <p className="mb-1 text-sm font-medium text-ink-soft">Salt and stock additions, per litre of sugar base</p>
@@ -118,8 +118,8 @@ export function BufferStep({ draftId, initial, library }: { draftId: number; ini
           <fieldset className="grid gap-3 rounded-md border border-paper-line p-3 sm:grid-cols-3">
             <legend className="px-1 text-sm font-semibold">At the bench</legend>
             {num("osmolality", "Optional; leave empty if not measured")}
-            <NumField id="buffer-tolerance" label="Accepted conductivity deviation (± %)" registration={register("tolerancePercent", { valueAsNumber: true })} error={errorAt(errors, "tolerancePercent")} hint="between 1 and 50 %" />
-            <NumField id="buffer-minutes" label="Longest time cells stay in this buffer (min)" registration={register("maxMinutesInBuffer", { valueAsNumber: true })} error={errorAt(errors, "maxMinutesInBuffer")} hint="1–240 min; 30–60 min is usual for sugar buffers" step={1} />
+            {num("tolerancePercent", undefined, "buffer-tolerance")}
+            {num("maxMinutesInBuffer", BUFFER_STEP_FIELDS.maxMinutesInBuffer.help, "buffer-minutes")}
           </fieldset>
         </div>
 

@@ -6,21 +6,15 @@ import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { interdigitatedField } from "@/lib/dielectric";
 import { sci, sig } from "@/lib/charts/format";
-import { DEVICE_FIELDS, deviceStepSchema, EXTRA_UNITS, libraryDeviceToStep, meanFlowSpeed, type DeviceStepValues, type LibraryDeviceContent } from "@/lib/planner-wizard/device-form";
-import { labelWithUnit, rangeInWords } from "@/lib/planner-wizard/lab-number";
+import { DEVICE_FIELDS } from "@/lib/devices/fields";
+import { deviceStepSchema, libraryDeviceToStep, meanFlowSpeed, STEP_FIELD_OF, type DeviceStepValues, type LibraryDeviceContent } from "@/lib/planner-wizard/device-form";
+import { labelWithUnit, rangeInWords } from "@/lib/units/lab-fields";
 import { errorAt, NumField } from "@/components/forms/num-field";
 import { StepFooter } from "./step-footer";
 import { useAutosave } from "./use-autosave";
 
-type Key = keyof typeof DEVICE_FIELDS;
-
-const label = (key: Key) => (EXTRA_UNITS[key] ? `${DEVICE_FIELDS[key].label} (${EXTRA_UNITS[key]})` : labelWithUnit(DEVICE_FIELDS[key]));
-const range = (key: Key) => {
-  if (key === "targetSpeed") return "between 0.1 and 10000 µm/s";
-  if (key === "flowRate") return "between 0.001 and 10000 µL/min";
-  if (key === "maxVoltageVpp") return "between 0.1 and 1000 Vpp";
-  return rangeInWords(DEVICE_FIELDS[key]);
-};
+type Key = keyof typeof STEP_FIELD_OF;
+const field = (key: Key) => DEVICE_FIELDS[STEP_FIELD_OF[key]];
 
 /** Step 3: electrodes (preset or own Γ), generator limit, what the drive is sized for, operating temperature. */
 export function DeviceStep({ draftId, initial, library }: { draftId: number; initial: DeviceStepValues; library: { id: number; version: number; name: string; content: LibraryDeviceContent }[] }) {
@@ -29,9 +23,9 @@ export function DeviceStep({ draftId, initial, library }: { draftId: number; ini
   const { register, control, handleSubmit, reset, getValues, formState: { errors, isSubmitting } } = useForm<DeviceStepValues>({ resolver: zodResolver(deviceStepSchema) as never, defaultValues: initial, mode: "onChange" });
   const values = useWatch({ control }) as DeviceStepValues;
   const { state, saveNow } = useAutosave(draftId, "device", values);
-  const num = (key: Key) => {
-    const spec = DEVICE_FIELDS[key];
-    return <NumField id={`device-${key}`} label={label(key)} registration={register(key, { valueAsNumber: true })} error={errorAt(errors, key)} hint={`${range(key)}${"hint" in spec ? `. ${spec.hint}` : ""}`} />;
+  const num = (key: Key, optional = false) => {
+    const f = field(key);
+    return <NumField id={`device-${key}`} label={`${labelWithUnit(f)}${optional ? ", optional" : ""}`} registration={register(key, { valueAsNumber: true })} error={errorAt(errors, key)} hint={`${rangeInWords(f)}. ${f.help}`} />;
   };
   let gammaText = "—";
   try {
@@ -90,6 +84,7 @@ export function DeviceStep({ draftId, initial, library }: { draftId: number; ini
         <fieldset className="space-y-3 rounded-md border border-paper-line p-3">
           <legend className="px-1 text-sm font-semibold">Generator and drive</legend>
           <div className="grid gap-3 sm:grid-cols-3">{num("maxVoltageVpp")}{num("operatingTemperatureC")}</div>
+          <div className="grid gap-3 sm:grid-cols-3">{num("minFrequency", true)}{num("maxFrequency", true)}</div>
           <div className="flex flex-wrap gap-4 text-sm">
             <label className="flex items-center gap-2"><input type="radio" value="speed" {...register("drive")} /> Size the voltage for a DEP speed</label>
             <label className="flex items-center gap-2"><input type="radio" value="flow" {...register("drive")} /> Size it for a flow rate through the channel</label>

@@ -1,6 +1,9 @@
 import { z } from "zod";
 import { conductivityAt25, evaluateBuffer, SALTS, STOCKS, type BufferAddition, type BufferResult, type SaltKind, type StockKind } from "@/lib/dielectric";
-import { labNumber, type LabFieldSpec } from "./lab-number";
+import { BUFFER_FIELDS as F, MAX_ADDITIONS } from "@/lib/buffers/fields";
+import { conductivityRangeIssue } from "@/lib/buffers/schema";
+import { fromSI, tidy, toSI } from "@/lib/units/lab";
+import { labSchema, type QuantityField } from "@/lib/units/quantity-field";
 
 /** How the medium conductivity is given. */
 export const BUFFER_MODES = ["recipe", "measured", "range"] as const;
@@ -23,18 +26,23 @@ export function additionUnitLabel(kind: AdditionKind): string {
   return isSaltKind(kind) ? `${SALTS[kind].label} — g per litre` : `${STOCKS[kind as StockKind].label} — mL per litre`;
 }
 
-/** Buffer step fields with their lab units and allowed ranges (SI). */
-export const BUFFER_FIELDS = {
-  sucrosePercentWV: { label: "Sucrose", unit: "percent", minSI: 0, maxSI: 0.3 },
-  glucosePercentWV: { label: "Glucose", unit: "percent", minSI: 0, maxSI: 0.3 },
-  temperatureC: { label: "Temperature the buffer is made up and measured at", unit: "degC", minSI: 0, maxSI: 60 },
-  measuredConductivity: { label: "Measured conductivity", unit: "mS_m", minSI: 1e-5, maxSI: 2 },
-  measuredAtC: { label: "Temperature of the reading", unit: "degC", minSI: 0, maxSI: 60 },
-  rangeLow: { label: "Lowest conductivity to search, at 25 °C", unit: "mS_m", minSI: 1e-4, maxSI: 2 },
-  rangeHigh: { label: "Highest conductivity to search, at 25 °C", unit: "mS_m", minSI: 1e-4, maxSI: 2 },
-  osmolality: { label: "Measured osmolality", unit: "mOsm_kg", minSI: 0.01, maxSI: 2 },
-  tolerancePercent: { label: "Accepted conductivity deviation at the bench", unit: "percent", minSI: 0.01, maxSI: 0.5 },
-} as const satisfies Record<string, LabFieldSpec>;
+/** Buffer step fields: rows of the buffer field table (lib/buffers/fields.ts) with the step's own labels. */
+export const BUFFER_STEP_FIELDS = {
+  volumeMl: F.volume,
+  sucrosePercentWV: F.sucrosePercentWV,
+  glucosePercentWV: F.glucosePercentWV,
+  perLitre: F.amountPerLitre,
+  temperatureC: { ...F.temperatureC, label: "Temperature the buffer is made up and measured at" },
+  measuredConductivity: { ...F.conductivity, label: "Measured conductivity" },
+  measuredAtC: { ...F.temperatureC, label: "Temperature of the reading" },
+  rangeLow: { ...F.conductivity, label: "Lowest conductivity to search, at 25 °C" },
+  rangeHigh: { ...F.conductivity, label: "Highest conductivity to search, at 25 °C" },
+  osmolality: F.osmolality,
+  tolerancePercent: { ...F.tolerance, label: "Accepted conductivity deviation at the bench" },
+  maxMinutesInBuffer: F.maxMinutesInBuffer,
+} as const satisfies Record<string, QuantityField>;
+type StepField = keyof typeof BUFFER_STEP_FIELDS;
+const lab = (key: StepField) => tidy(fromSI(BUFFER_STEP_FIELDS[key].unit, BUFFER_STEP_FIELDS[key].default), 8);
 
 /** The buffer step as typed (lab units: mL, % w/v, mS/m, °C, mOsm/kg). */
 export interface BufferStepValues {
@@ -56,24 +64,24 @@ export interface BufferStepValues {
   maxMinutesInBuffer: number;
 }
 
-/** A low-conductivity isotonic sugar buffer (common practice: ≈8.5 % sucrose + 0.3 % glucose, a little PBS). */
+/** A low-conductivity isotonic sugar buffer (the field table's defaults: 8.5 % sucrose + 0.3 % glucose, a little PBS). */
 export function defaultBuffer(): BufferStepValues {
   return {
     name: "Sucrose–glucose DEP buffer",
     libraryRef: null,
     mode: "recipe",
-    volumeMl: 100,
-    sucrosePercentWV: 8.5,
-    glucosePercentWV: 0.3,
-    additions: [{ kind: "PBS1x", perLitre: 5 }],
-    temperatureC: 25,
-    measuredConductivity: 10,
-    measuredAtC: 25,
+    volumeMl: lab("volumeMl"),
+    sucrosePercentWV: lab("sucrosePercentWV"),
+    glucosePercentWV: lab("glucosePercentWV"),
+    additions: [{ kind: "PBS1x", perLitre: lab("perLitre") }],
+    temperatureC: lab("temperatureC"),
+    measuredConductivity: lab("measuredConductivity"),
+    measuredAtC: lab("measuredAtC"),
     rangeLow: 1,
     rangeHigh: 100,
     osmolality: Number.NaN,
-    tolerancePercent: 10,
-    maxMinutesInBuffer: 45,
+    tolerancePercent: lab("tolerancePercent"),
+    maxMinutesInBuffer: lab("maxMinutesInBuffer"),
   };
 }
 
@@ -90,9 +98,9 @@ const check = (ctx: z.RefinementCtx, path: string, schema: z.ZodType, value: unk
  * @example toEngineRecipe(defaultBuffer()).additions // [{ kind: "PBS1x", volumeL: 0.0005 }]
  */
 export function toEngineRecipe(v: BufferStepValues) {
-  const volumeL = v.volumeMl / 1000;
+  const volumeL = tidy(toSI("mL", v.volumeMl) * 1000, 12);
   const additions: BufferAddition[] = v.additions.map((a) =>
-    isSaltKind(a.kind) ? { kind: a.kind, grams: a.perLitre * volumeL } : { kind: a.kind as StockKind, volumeL: (a.perLitre / 1000) * volumeL },
+    isSaltKind(a.kind) ? { kind: a.kind, grams: tidy(a.perLitre * volumeL, 12) } : { kind: a.kind as StockKind, volumeL: tidy(toSI("mL", a.perLitre) * 1000 * volumeL, 12) },
   );
   return { volumeL, temperatureC: v.temperatureC, sucrosePercentWV: v.sucrosePercentWV, glucosePercentWV: v.glucosePercentWV, additions };
 }
@@ -126,15 +134,15 @@ export interface BufferChoice {
  * @example bufferChoice({ ...defaultBuffer(), mode: "measured", measuredConductivity: 10, measuredAtC: 25 }).conductivity25 // 0.01
  */
 export function bufferChoice(v: BufferStepValues): BufferChoice {
-  const osm = Number.isFinite(v.osmolality) ? v.osmolality / 1000 : null;
+  const osm = Number.isFinite(v.osmolality) ? toSI("mOsm_kg", v.osmolality) : null;
   if (v.mode === "recipe") {
     const { result } = predictRecipe(v);
     return { mode: v.mode, conductivity25: result?.conductivity25 ?? null, range25: null, osmolality: osm ?? result?.osmolality ?? null, relativeViscosity: result?.relativeViscosity ?? null, recipe: result };
   }
   if (v.mode === "measured") {
-    return { mode: v.mode, conductivity25: conductivityAt25(v.measuredConductivity / 1000, v.measuredAtC), range25: null, osmolality: osm, relativeViscosity: null, recipe: null };
+    return { mode: v.mode, conductivity25: conductivityAt25(toSI("mS_m", v.measuredConductivity), v.measuredAtC), range25: null, osmolality: osm, relativeViscosity: null, recipe: null };
   }
-  return { mode: v.mode, conductivity25: null, range25: { low: v.rangeLow / 1000, high: v.rangeHigh / 1000 }, osmolality: osm, relativeViscosity: null, recipe: null };
+  return { mode: v.mode, conductivity25: null, range25: { low: toSI("mS_m", v.rangeLow), high: toSI("mS_m", v.rangeHigh) }, osmolality: osm, relativeViscosity: null, recipe: null };
 }
 
 /** Step 2 schema, in lab units; only the chosen mode's fields are checked. Output: the values plus the SI choice. */
@@ -146,7 +154,7 @@ export const bufferStepSchema = z
     volumeMl: loose,
     sucrosePercentWV: loose,
     glucosePercentWV: loose,
-    additions: z.array(z.object({ kind: z.enum(ADDITION_KINDS, { error: "Addition: choose a salt or a stock." }), perLitre: loose })).max(20, { error: "At most 20 additions." }),
+    additions: z.array(z.object({ kind: z.enum(ADDITION_KINDS, { error: "Addition: choose a salt or a stock." }), perLitre: loose })).max(MAX_ADDITIONS, { error: `At most ${MAX_ADDITIONS} additions.` }),
     temperatureC: loose,
     measuredConductivity: loose,
     measuredAtC: loose,
@@ -157,29 +165,27 @@ export const bufferStepSchema = z
     maxMinutesInBuffer: loose,
   })
   .superRefine((v, ctx) => {
-    const pct = (label: string, max: number) => z.number({ error: `${label} (% w/v): enter a number between 0 and ${max} % w/v.` }).min(0, { error: `${label} (% w/v): enter a number between 0 and ${max} % w/v.` }).max(max, { error: `${label} (% w/v): enter a number between 0 and ${max} % w/v.` });
-    check(ctx, "tolerancePercent", z.number({ error: "Accepted deviation (%): enter a number between 1 and 50 %." }).min(1, { error: "Accepted deviation (%): enter a number between 1 and 50 %." }).max(50, { error: "Accepted deviation (%): enter a number between 1 and 50 %." }), v.tolerancePercent);
-    check(ctx, "maxMinutesInBuffer", z.number({ error: "Longest time in buffer (min): enter whole minutes from 1 to 240." }).int({ error: "Longest time in buffer (min): enter whole minutes from 1 to 240." }).min(1, { error: "Longest time in buffer (min): enter whole minutes from 1 to 240." }).max(240, { error: "Longest time in buffer (min): enter whole minutes from 1 to 240." }), v.maxMinutesInBuffer);
-    if (v.osmolality !== undefined && v.osmolality !== null && !Number.isNaN(v.osmolality)) check(ctx, "osmolality", labNumber(BUFFER_FIELDS.osmolality), v.osmolality);
+    const num = (key: StepField, path: string = key, value: unknown = v[key as keyof typeof v]) => check(ctx, path, labSchema(BUFFER_STEP_FIELDS[key]), value);
+    num("tolerancePercent");
+    num("maxMinutesInBuffer");
+    if (v.osmolality !== undefined && v.osmolality !== null && !Number.isNaN(v.osmolality)) num("osmolality");
     if (v.mode === "recipe") {
-      let ok = check(ctx, "volumeMl", z.number({ error: "Batch volume (mL): enter a number between 1 and 100000 mL." }).min(1, { error: "Batch volume (mL): enter a number between 1 and 100000 mL." }).max(100000, { error: "Batch volume (mL): enter a number between 1 and 100000 mL." }), v.volumeMl);
-      ok = check(ctx, "sucrosePercentWV", pct("Sucrose", 30), v.sucrosePercentWV) && ok;
-      ok = check(ctx, "glucosePercentWV", pct("Glucose", 30), v.glucosePercentWV) && ok;
-      ok = check(ctx, "temperatureC", labNumber(BUFFER_FIELDS.temperatureC), v.temperatureC) && ok;
-      v.additions.forEach((a, i) => (ok = check(ctx, `additions.${i}.perLitre`, z.number({ error: `Amount (${isSaltKind(a.kind) ? "g" : "mL"} per litre): enter a number from 0 to 1000.` }).min(0, { error: `Amount (${isSaltKind(a.kind) ? "g" : "mL"} per litre): enter a number from 0 to 1000.` }).max(1000, { error: `Amount (${isSaltKind(a.kind) ? "g" : "mL"} per litre): enter a number from 0 to 1000.` }), a.perLitre) && ok));
+      let ok = num("volumeMl");
+      ok = num("sucrosePercentWV") && ok;
+      ok = num("glucosePercentWV") && ok;
+      ok = num("temperatureC") && ok;
+      v.additions.forEach((a, i) => (ok = num("perLitre", `additions.${i}.perLitre`, a.perLitre) && ok));
       if (ok) {
         const { error } = predictRecipe(v as BufferStepValues);
         if (error) issue(ctx, "additions", `The recipe cannot be evaluated: ${error}.`);
       }
     } else if (v.mode === "measured") {
-      check(ctx, "measuredConductivity", labNumber(BUFFER_FIELDS.measuredConductivity), v.measuredConductivity);
-      check(ctx, "measuredAtC", labNumber(BUFFER_FIELDS.measuredAtC), v.measuredAtC);
+      num("measuredConductivity");
+      num("measuredAtC");
     } else {
-      check(ctx, "rangeLow", labNumber(BUFFER_FIELDS.rangeLow), v.rangeLow);
-      check(ctx, "rangeHigh", labNumber(BUFFER_FIELDS.rangeHigh), v.rangeHigh);
-      if (Number.isFinite(v.rangeLow) && Number.isFinite(v.rangeHigh) && !(v.rangeHigh > v.rangeLow * 1.05)) {
-        issue(ctx, "rangeHigh", `Highest conductivity (mS/m): must be above the lowest (${v.rangeLow} mS/m) by at least 5 %.`);
-      }
+      const ok = num("rangeLow") && num("rangeHigh");
+      const problem = ok ? conductivityRangeIssue(toSI("mS_m", v.rangeLow), toSI("mS_m", v.rangeHigh)) : null;
+      if (problem) issue(ctx, "rangeHigh", `Highest conductivity (mS/m): ${problem}.`);
     }
   });
 
@@ -200,13 +206,13 @@ export interface LibraryBufferContent {
  */
 export function libraryBufferToStep(c: LibraryBufferContent, ref: { id: number; version: number }): BufferStepValues {
   const base = defaultBuffer();
-  const common = { ...base, name: c.name, libraryRef: ref, tolerancePercent: Math.round(c.tolerance * 1000) / 10, maxMinutesInBuffer: c.maxMinutesInBuffer, osmolality: c.osmolality === null ? Number.NaN : c.osmolality * 1000 };
+  const common = { ...base, name: c.name, libraryRef: ref, tolerancePercent: tidy(fromSI("percent", c.tolerance), 8), maxMinutesInBuffer: c.maxMinutesInBuffer, osmolality: c.osmolality === null ? Number.NaN : tidy(fromSI("mOsm_kg", c.osmolality), 8) };
   if (c.recipe) {
     const additions = c.recipe.additions.filter((a) => (ADDITION_KINDS as string[]).includes(a.kind)).map((a) => ({ kind: a.kind as AdditionKind, perLitre: a.amountPerLitre }));
     return { ...common, mode: "recipe", sucrosePercentWV: c.recipe.sucrosePercentWV, glucosePercentWV: c.recipe.glucosePercentWV, additions };
   }
-  if (c.measured) return { ...common, mode: "measured", measuredConductivity: c.measured.conductivity * 1000, measuredAtC: c.measured.temperatureC };
-  return { ...common, mode: "measured", measuredConductivity: c.targetConductivity25 * 1000, measuredAtC: 25 };
+  if (c.measured) return { ...common, mode: "measured", measuredConductivity: tidy(fromSI("mS_m", c.measured.conductivity), 8), measuredAtC: c.measured.temperatureC };
+  return { ...common, mode: "measured", measuredConductivity: tidy(fromSI("mS_m", c.targetConductivity25), 8), measuredAtC: 25 };
 }
 
 /** Readable label of every salt and stock, as printed in a protocol's recipe. */

@@ -4,7 +4,7 @@ import { protocolContentSchema, type ProtocolContent } from "@/lib/protocols/con
 import { parseOrThrow } from "@/lib/http/zod-issues";
 import { isSaltKind, SALT_AND_STOCK_LABELS, type BufferStepValues } from "./buffer-form";
 import { bufferChoice } from "./buffer-form";
-import type { DeviceStepValues } from "./device-form";
+import { stepFrequencyRange, stepSI, type DeviceStepValues } from "./device-form";
 import type { LimitsStepValues } from "./limits-form";
 import type { PopulationsStepOutput } from "./population-form";
 import { behaviourText, toProtocolWarning } from "./results-data";
@@ -45,11 +45,11 @@ export function buildContent(src: ContentSources): ProtocolContent {
   const { populations, buffer, device, limits, request, result, window: w } = src;
   const choice = bufferChoice(buffer);
   const sigma25 = w.operatingPoint.conductivity / (1 + 0.02 * (device.operatingTemperatureC - 25));
-  const um = (x: number) => x * 1e-6;
+  const m = (key: "electrodeWidth" | "electrodeGap" | "evalHeight" | "channelHeight") => stepSI(device, key);
   const geometryDims: Record<string, number> =
     device.geometry === "interdigitated"
-      ? { electrodeWidth: um(device.electrodeWidth), electrodeGap: um(device.electrodeGap), height: um(device.evalHeight), channelHeight: um(device.channelHeight) }
-      : { electrodeGap: um(device.electrodeGap), channelHeight: um(device.channelHeight) };
+      ? { electrodeWidth: m("electrodeWidth"), electrodeGap: m("electrodeGap"), height: m("evalHeight"), channelHeight: m("channelHeight") }
+      : { electrodeGap: m("electrodeGap"), channelHeight: m("channelHeight") };
   const content: ProtocolContent = {
     populations: {
       target: { name: populations.target.name, ...(populations.target.libraryRef ? { libraryRef: populations.target.libraryRef } : {}), spec: populations.target.spec },
@@ -81,6 +81,7 @@ export function buildContent(src: ContentSources): ProtocolContent {
       gradientFactor: result.model.device.gamma,
       gradientSource: device.geometry === "interdigitated" ? result.model.device.approximation : `${device.gammaSource} (user value)`,
       maxVoltageVpp: device.maxVoltageVpp,
+      ...stepFrequencyRange(device),
     },
     sortDesign: result.model.design.description,
     inputMix: { targetFraction: limits.targetPercent / 100 },

@@ -1,27 +1,19 @@
 import { z } from "zod";
-import { labNumber, type LabFieldSpec } from "./lab-number";
+import { DEVICE_FIELDS, type DeviceFieldKey } from "@/lib/devices/fields";
+import { frequencyRangeIssue } from "@/lib/devices/schema";
+import { fromSI, tidy, toSI } from "@/lib/units/lab";
+import { labSchema } from "@/lib/units/quantity-field";
 
 /** Electrode geometry: the interdigitated preset, or a Γ from the user's own field simulation. */
 export const GEOMETRIES = ["interdigitated", "user"] as const;
 /** What the drive is sized for: a DEP speed, or a flow rate through the channel. */
 export const DRIVE_MODES = ["speed", "flow"] as const;
 
-/** Device step fields with lab units and allowed ranges (SI, as windowsRequestSchema checks them). */
-export const DEVICE_FIELDS = {
-  electrodeWidth: { label: "Electrode width", unit: "um", minSI: 1e-6, maxSI: 1e-3 },
-  electrodeGap: { label: "Electrode gap", unit: "um", minSI: 1e-6, maxSI: 1e-3 },
-  evalHeight: { label: "Height above the electrodes where cells are judged", unit: "um", minSI: 0, maxSI: 1e-3, hint: "Half the gap is a fair choice for cells settling onto the array." },
-  gamma: { label: "Field-gradient factor Γ", unit: "per_m3", minSI: 1e6, maxSI: 1e20, hint: "∇|E_rms|² = Γ·V_rms², from your own field simulation." },
-  channelHeight: { label: "Channel height", unit: "um", minSI: 1e-6, maxSI: 5e-3 },
-  channelWidth: { label: "Channel width", unit: "um", minSI: 1e-6, maxSI: 5e-2 },
-  arrayLength: { label: "Electrode array length along the flow", unit: "mm", minSI: 1e-6, maxSI: 0.1 },
-  maxVoltageVpp: { label: "Generator limit, peak to peak", unit: "V", minSI: 0.1, maxSI: 1000 },
-  targetSpeed: { label: "Target DEP speed", unit: "um", minSI: 0.1e-6, maxSI: 0.01, hint: "About one cell diameter per second is common practice." },
-  flowRate: { label: "Flow rate", unit: "V", minSI: 0.001, maxSI: 10000, hint: "Volume per minute through the channel." },
-  operatingTemperatureC: { label: "Operating temperature at the chip", unit: "degC", minSI: 0, maxSI: 60 },
-} as const satisfies Record<string, LabFieldSpec>;
+/** The device step's number fields: rows of the device field table (lib/devices/fields.ts). */
+export const DEVICE_STEP_FIELDS = ["electrodeWidth", "electrodeGap", "evalHeight", "gradientFactor", "channelHeight", "channelWidth", "arrayLength", "maxVoltageVpp", "minFrequency", "maxFrequency", "targetSpeed", "flowRate", "operatingTemperatureC"] as const satisfies readonly DeviceFieldKey[];
+type StepField = (typeof DEVICE_STEP_FIELDS)[number];
 
-/** The device step as typed (µm, mm, Vpp, µm/s, µL/min, °C). */
+/** The device step as typed, each number in its field's lab unit (µm, mm, m⁻³, Vpp, kHz, MHz, µm/s, µL/min, °C). */
 export interface DeviceStepValues {
   name: string;
   libraryRef: { id: number; version: number } | null;
@@ -35,47 +27,68 @@ export interface DeviceStepValues {
   channelWidth: number;
   arrayLength: number;
   maxVoltageVpp: number;
+  /** The generator's frequency range (kHz, MHz); empty (NaN or missing) when not stated. */
+  minFrequency?: number;
+  maxFrequency?: number;
   drive: (typeof DRIVE_MODES)[number];
   targetSpeed: number;
   flowRate: number;
   operatingTemperatureC: number;
 }
 
-/** A 20 µm interdigitated array in a 50 µm channel driven at up to 20 Vpp (typical bench values, from memory). */
+const lab = (key: StepField) => tidy(fromSI(DEVICE_FIELDS[key].unit, DEVICE_FIELDS[key].default), 8);
+const si = (key: StepField, value: number) => tidy(toSI(DEVICE_FIELDS[key].unit, value), 12);
+const isEmpty = (v: unknown) => v === undefined || v === null || (typeof v === "number" && Number.isNaN(v));
+
+/** Where each step value sits in the field table (the step keeps its historical name `gamma`). */
+export const STEP_FIELD_OF: Record<Exclude<keyof DeviceStepValues, "name" | "libraryRef" | "geometry" | "gammaSource" | "drive">, StepField> = {
+  electrodeWidth: "electrodeWidth", electrodeGap: "electrodeGap", evalHeight: "evalHeight", gamma: "gradientFactor", channelHeight: "channelHeight",
+  channelWidth: "channelWidth", arrayLength: "arrayLength", maxVoltageVpp: "maxVoltageVpp", minFrequency: "minFrequency", maxFrequency: "maxFrequency",
+  targetSpeed: "targetSpeed", flowRate: "flowRate", operatingTemperatureC: "operatingTemperatureC",
+};
+
+/** A 20 µm interdigitated array in a 50 µm channel driven at up to 20 Vpp (the field table's defaults); no generator frequency range stated. */
 export function defaultDevice(): DeviceStepValues {
   return {
     name: "Interdigitated array, 20 µm",
     libraryRef: null,
     geometry: "interdigitated",
-    electrodeWidth: 20,
-    electrodeGap: 20,
-    evalHeight: 10,
-    gamma: 1e14,
+    electrodeWidth: lab("electrodeWidth"),
+    electrodeGap: lab("electrodeGap"),
+    evalHeight: lab("evalHeight"),
+    gamma: lab("gradientFactor"),
     gammaSource: "",
-    channelHeight: 50,
-    channelWidth: 2000,
-    arrayLength: 10,
-    maxVoltageVpp: 20,
+    channelHeight: lab("channelHeight"),
+    channelWidth: lab("channelWidth"),
+    arrayLength: lab("arrayLength"),
+    maxVoltageVpp: lab("maxVoltageVpp"),
     drive: "speed",
-    targetSpeed: 10,
-    flowRate: 5,
-    operatingTemperatureC: 25,
+    targetSpeed: lab("targetSpeed"),
+    flowRate: lab("flowRate"),
+    operatingTemperatureC: lab("operatingTemperatureC"),
   };
 }
 
-/** The unit text of fields whose unit is not in the lab-unit table (speed, flow rate). */
-export const EXTRA_UNITS: Partial<Record<keyof typeof DEVICE_FIELDS, string>> = { targetSpeed: "µm/s", flowRate: "µL/min", maxVoltageVpp: "Vpp" };
+/**
+ * The value of a step field in SI.
+ * @example stepSI(defaultDevice(), "electrodeGap") // 2e-5 (m)
+ */
+export function stepSI(v: DeviceStepValues, key: keyof typeof STEP_FIELD_OF): number {
+  return si(STEP_FIELD_OF[key], v[key] as number);
+}
+
+/**
+ * The generator's frequency range of a step in Hz, only the ends that were given.
+ * @example stepFrequencyRange({ ...defaultDevice(), minFrequency: 1, maxFrequency: 20 }) // { generatorMinFrequency: 1000, generatorMaxFrequency: 2e7 }
+ */
+export function stepFrequencyRange(v: DeviceStepValues): { generatorMinFrequency?: number; generatorMaxFrequency?: number } {
+  return {
+    ...(isEmpty(v.minFrequency) ? {} : { generatorMinFrequency: stepSI(v, "minFrequency") }),
+    ...(isEmpty(v.maxFrequency) ? {} : { generatorMaxFrequency: stepSI(v, "maxFrequency") }),
+  };
+}
 
 const loose = z.any();
-const num = (key: keyof typeof DEVICE_FIELDS) => {
-  const spec = DEVICE_FIELDS[key];
-  const unit = EXTRA_UNITS[key];
-  if (!unit) return labNumber(spec);
-  const min = key === "targetSpeed" ? 0.1 : spec.minSI;
-  const max = key === "targetSpeed" ? 10000 : spec.maxSI;
-  const message = `${spec.label} (${unit}): enter a number between ${min} and ${max} ${unit}.`;
-  return z.number({ error: message }).refine((v) => Number.isFinite(v) && v >= min && v <= max, { error: message });
-};
 
 /** Step 3 schema in lab units; only the fields of the chosen geometry and drive are checked. */
 export const deviceStepSchema = z
@@ -83,29 +96,27 @@ export const deviceStepSchema = z
     name: z.string().trim().min(1, { error: "Device name: 1 to 120 characters." }).max(120, { error: "Device name: 1 to 120 characters." }),
     libraryRef: z.object({ id: z.number().int(), version: z.number().int() }).nullable(),
     geometry: z.enum(GEOMETRIES, { error: "Geometry: choose the interdigitated preset or your own Γ." }),
-    electrodeWidth: loose,
-    electrodeGap: loose,
-    evalHeight: loose,
-    gamma: loose,
+    ...(Object.fromEntries(Object.keys(STEP_FIELD_OF).map((k) => [k, loose])) as Record<keyof typeof STEP_FIELD_OF, typeof loose>),
+    minFrequency: loose.optional(),
+    maxFrequency: loose.optional(),
     gammaSource: z.string().max(500, { error: "Source of Γ: at most 500 characters." }),
-    channelHeight: loose,
-    channelWidth: loose,
-    arrayLength: loose,
-    maxVoltageVpp: loose,
     drive: z.enum(DRIVE_MODES, { error: "Drive: size it for a DEP speed or a flow rate." }),
-    targetSpeed: loose,
-    flowRate: loose,
-    operatingTemperatureC: loose,
   })
   .superRefine((v, ctx) => {
-    const check = (key: keyof typeof DEVICE_FIELDS) => {
-      const r = num(key).safeParse(v[key]);
-      if (!r.success) ctx.addIssue({ code: "custom", path: [key], message: r.error.issues[0].message });
+    let ok = true;
+    const check = (key: keyof typeof STEP_FIELD_OF) => {
+      const r = labSchema(DEVICE_FIELDS[STEP_FIELD_OF[key]]).safeParse(v[key]);
+      if (!r.success) {
+        ok = false;
+        ctx.addIssue({ code: "custom", path: [key], message: r.error.issues[0].message });
+      }
     };
     check("electrodeGap");
     check("channelHeight");
     check("maxVoltageVpp");
     check("operatingTemperatureC");
+    if (!isEmpty(v.minFrequency)) check("minFrequency");
+    if (!isEmpty(v.maxFrequency)) check("maxFrequency");
     if (v.geometry === "interdigitated") {
       check("electrodeWidth");
       check("evalHeight");
@@ -122,6 +133,9 @@ export const deviceStepSchema = z
       check("channelWidth");
       check("arrayLength");
     }
+    const range = stepFrequencyRange(v as DeviceStepValues);
+    const issue = ok ? frequencyRangeIssue({ minFrequency: range.generatorMinFrequency, maxFrequency: range.generatorMaxFrequency }) : null;
+    if (issue) ctx.addIssue({ code: "custom", path: ["maxFrequency"], message: `Highest generator frequency (MHz): ${issue}.` });
   });
 
 /**
@@ -129,8 +143,7 @@ export const deviceStepSchema = z
  * @example meanFlowSpeed(6, 1000, 100) // 0.001 m/s (6 µL/min through 1 mm × 100 µm)
  */
 export function meanFlowSpeed(flowRateUlPerMin: number, channelWidthUm: number, channelHeightUm: number): number {
-  const q = (flowRateUlPerMin * 1e-9) / 60;
-  return q / (channelWidthUm * 1e-6 * channelHeightUm * 1e-6);
+  return toSI("uL_min", flowRateUlPerMin) / (toSI("um", channelWidthUm) * toSI("um", channelHeightUm));
 }
 
 /** A library device profile as stored (SI), reduced to what the wizard copies. */
@@ -139,17 +152,27 @@ export interface LibraryDeviceContent {
   geometry:
     | { kind: "interdigitated"; electrodeWidth: number; electrodeGap: number; channelHeight: number }
     | { kind: "user-gradient"; gradientFactor: number; gradientSource: string; electrodeGap: number; channelHeight: number };
-  generator: { maxVoltageVpp: number };
+  generator: { maxVoltageVpp: number; minFrequency?: number; maxFrequency?: number };
 }
 
 /**
- * Device step values from a library device profile (µm from m; the drive and temperature are kept from `current`).
+ * Device step values from a library device profile, generator frequency range included (lab units from SI; the
+ * drive and temperature are kept from `current`).
  * @example libraryDeviceToStep(item, { id: 1, version: 2 }, defaultDevice()).electrodeGap // 20 (µm)
  */
 export function libraryDeviceToStep(c: LibraryDeviceContent, ref: { id: number; version: number }, current: DeviceStepValues): DeviceStepValues {
-  const um = (m: number) => Math.round(m * 1e9) / 1000;
+  const toLab = (key: StepField, value: number | undefined) => (value === undefined ? undefined : tidy(fromSI(DEVICE_FIELDS[key].unit, value), 8));
   const g = c.geometry;
-  const base = { ...current, name: c.name, libraryRef: ref, electrodeGap: um(g.electrodeGap), channelHeight: um(g.channelHeight), maxVoltageVpp: c.generator.maxVoltageVpp };
-  if (g.kind === "interdigitated") return { ...base, geometry: "interdigitated", electrodeWidth: um(g.electrodeWidth), evalHeight: um(g.electrodeGap / 2) };
+  const base: DeviceStepValues = {
+    ...current,
+    name: c.name,
+    libraryRef: ref,
+    electrodeGap: toLab("electrodeGap", g.electrodeGap)!,
+    channelHeight: toLab("channelHeight", g.channelHeight)!,
+    maxVoltageVpp: c.generator.maxVoltageVpp,
+    minFrequency: toLab("minFrequency", c.generator.minFrequency),
+    maxFrequency: toLab("maxFrequency", c.generator.maxFrequency),
+  };
+  if (g.kind === "interdigitated") return { ...base, geometry: "interdigitated", electrodeWidth: toLab("electrodeWidth", g.electrodeWidth)!, evalHeight: toLab("evalHeight", g.electrodeGap / 2)! };
   return { ...base, geometry: "user", gamma: g.gradientFactor, gammaSource: g.gradientSource };
 }

@@ -1,8 +1,7 @@
 import { waterPermittivity } from "@/lib/dielectric";
-import { tidy } from "@/lib/units/lab";
 import type { WindowsRequest } from "@/lib/planner/schema";
 import { bufferChoice, bufferStepSchema, type BufferStepValues } from "./buffer-form";
-import { deviceStepSchema, meanFlowSpeed, type DeviceStepValues } from "./device-form";
+import { deviceStepSchema, meanFlowSpeed, stepFrequencyRange, stepSI, type DeviceStepValues } from "./device-form";
 import { limitsStepSchema, type LimitsStepValues } from "./limits-form";
 import type { WizardInputs } from "./mapper";
 import { populationsStepSchema, type PopulationsStepOutput } from "./population-form";
@@ -56,7 +55,6 @@ export function toWindowsRequest(r: Extract<ReadyInputs, { ok: true }>, seed = D
   const { populations, buffer, device, limits } = r;
   const choice = bufferChoice(buffer);
   const t = device.operatingTemperatureC;
-  const um = (x: number) => tidy(x * 1e-6, 12);
   const medium: WindowsRequest["medium"] = {
     temperatureC: t,
     permittivity: waterPermittivity(t),
@@ -68,12 +66,12 @@ export function toWindowsRequest(r: Extract<ReadyInputs, { ok: true }>, seed = D
   };
   const geometry: WindowsRequest["device"]["geometry"] =
     device.geometry === "interdigitated"
-      ? { kind: "interdigitated", electrodeWidth: um(device.electrodeWidth), electrodeGap: um(device.electrodeGap), height: um(device.evalHeight) }
-      : { kind: "user", gamma: device.gamma, electrodeGap: um(device.electrodeGap) };
+      ? { kind: "interdigitated", electrodeWidth: stepSI(device, "electrodeWidth"), electrodeGap: stepSI(device, "electrodeGap"), height: stepSI(device, "evalHeight") }
+      : { kind: "user", gamma: device.gamma, electrodeGap: stepSI(device, "electrodeGap") };
   const drive =
     device.drive === "speed"
-      ? { targetDepSpeed: um(device.targetSpeed) }
-      : { flowSpeed: meanFlowSpeed(device.flowRate, device.channelWidth, device.channelHeight), electrodeArrayLength: tidy(device.arrayLength * 1e-3, 12) };
+      ? { targetDepSpeed: stepSI(device, "targetSpeed") }
+      : { flowSpeed: meanFlowSpeed(device.flowRate, device.channelWidth, device.channelHeight), electrodeArrayLength: stepSI(device, "arrayLength") };
   const sortDesign: WindowsRequest["sortDesign"] =
     limits.sortDesign === "capture-target" ? { kind: "capture", captured: "target" }
       : limits.sortDesign === "capture-other" ? { kind: "capture", captured: "other" }
@@ -86,7 +84,7 @@ export function toWindowsRequest(r: Extract<ReadyInputs, { ok: true }>, seed = D
     targetId: "target",
     medium,
     frequencies: { ...PLAN_FREQUENCIES },
-    device: { geometry, maxVoltageVpp: device.maxVoltageVpp, channelHeight: um(device.channelHeight), ...drive },
+    device: { geometry, maxVoltageVpp: device.maxVoltageVpp, ...stepFrequencyRange(device), channelHeight: stepSI(device, "channelHeight"), ...drive },
     constraints: {
       maxTemperatureRise: limits.maxTemperatureRise,
       maxElectrothermalRatio: limits.maxElectrothermalRatio,

@@ -7,6 +7,8 @@
  */
 import { z } from "zod";
 import { describeValue, LIMITS, mediumConductivitySchema, quantity } from "@/lib/dielectric";
+import { mediumOsmolalitySchema, operatingTemperatureSchema } from "@/lib/buffers/schema";
+import { plannerDeviceChecks, plannerDeviceShape } from "@/lib/devices/schema";
 import { populationSpecSchema, type PopulationSpec, type SpreadParam } from "@/lib/populations/spec";
 
 const populationSchema = z.object({
@@ -41,20 +43,6 @@ export const PLANNER_LIMITS = {
 
 const frequency = quantity({ what: "frequency (Hz)", range: "from 1 Hz to 10 GHz", min: LIMITS.minFrequency, max: LIMITS.maxFrequency });
 
-const interdigitated = z.strictObject({
-  kind: z.literal("interdigitated"),
-  electrodeWidth: quantity({ what: "electrode width (m)", range: "between 1 µm and 1 mm", min: 1e-6, max: 1e-3 }),
-  electrodeGap: quantity({ what: "electrode gap (m)", range: "between 1 µm and 1 mm", min: 1e-6, max: 1e-3 }),
-  height: quantity({ what: "height above the electrodes (m)", range: "between 0 and 1 mm", min: 0, max: 1e-3 }).optional(),
-});
-const userGamma = z.strictObject({
-  kind: z.literal("user"),
-  gamma: quantity({ what: "field-gradient factor Γ (m⁻³)", range: "greater than zero and at most 1e20 m⁻³", min: 0, max: 1e20, exclusiveMin: true }),
-  electrodeGap: quantity({ what: "electrode gap (m)", range: "between 1 µm and 1 mm", min: 1e-6, max: 1e-3 }),
-  /** Height above the electrodes where Γ applies (m); used for the flow speed a captured cell must resist. */
-  height: quantity({ what: "height above the electrodes (m)", range: "between 0 and 1 mm", min: 0, max: 1e-3 }).optional(),
-});
-
 const conductivityOfWall = (what: string) =>
   quantity({ what: `${what} thermal conductivity (W/(m·K))`, range: "between 0.01 and 500 W/(m·K) (PDMS ≈ 0.15, glass ≈ 1.05, silicon ≈ 150)", min: 0.01, max: 500 });
 
@@ -73,9 +61,9 @@ export const windowsRequestSchema = z
         /** … or a log-spaced range to sweep, S/m. */
         conductivityRange: gridOf("conductivity", mediumConductivitySchema, PLANNER_LIMITS.maxConductivities, "S/m").optional(),
         permittivity: quantity({ what: "medium relative permittivity", range: "between 1 and 200", min: 1, max: 200 }).optional(),
-        temperatureC: quantity({ what: "operating temperature (°C)", range: "between 0 and 60 °C", min: 0, max: 60 }).optional(),
+        temperatureC: operatingTemperatureSchema.optional(),
         relativeViscosity: quantity({ what: "medium viscosity relative to water", range: "between 1 and 10", min: 1, max: 10 }).optional(),
-        osmolality: quantity({ what: "medium osmolality (osmol/kg)", range: "between 0 and 2 osmol/kg", min: 0, max: 2 }).optional(),
+        osmolality: mediumOsmolalitySchema.optional(),
       })
       .superRefine((m, ctx) => {
         if ((m.conductivity === undefined) === (m.conductivityRange === undefined)) {
@@ -83,31 +71,23 @@ export const windowsRequestSchema = z
         }
       }),
     frequencies: gridOf("frequency", frequency, PLANNER_LIMITS.maxFrequencies, "Hz").optional(),
-    device: z.object({
-      geometry: z.discriminatedUnion("kind", [interdigitated, userGamma], { error: (iss) => `device geometry must be { kind: "interdigitated", electrodeWidth, electrodeGap, height? } or { kind: "user", gamma, electrodeGap } (got ${describeValue(iss.input)})` }),
-      /** Generator limit, volts peak-to-peak. */
-      maxVoltageVpp: quantity({ what: "generator limit (Vpp)", range: "greater than zero and at most 1000 Vpp", min: 0, max: 1000, exclusiveMin: true }),
-      channelHeight: quantity({ what: "channel height (m)", range: "between 1 µm and 5 mm", min: 1e-6, max: 5e-3 }),
-      flowSpeed: quantity({ what: "mean flow speed (m/s)", range: "between 0 and 1 m/s", min: 0, max: 1 }).optional(),
-      electrodeArrayLength: quantity({ what: "electrode array length along the flow (m)", range: "between 1 µm and 0.1 m", min: 1e-6, max: 0.1 }).optional(),
-      targetDepSpeed: quantity({ what: "target DEP speed (m/s)", range: "greater than zero and at most 0.01 m/s", min: 0, max: 0.01, exclusiveMin: true }).optional(),
-      /** The generator's frequency range, Hz: grid points outside it are refused (blocker "frequency-range"). */
-      generatorMinFrequency: quantity({ what: "generator lowest frequency (Hz)", range: "from 1 Hz to 10 GHz", min: LIMITS.minFrequency, max: LIMITS.maxFrequency }).optional(),
-      generatorMaxFrequency: quantity({ what: "generator highest frequency (Hz)", range: "from 1 Hz to 10 GHz", min: LIMITS.minFrequency, max: LIMITS.maxFrequency }).optional(),
-      /** Electrode array area for the array-heating estimate, m² (default 1 mm²). */
-      electrodeArrayArea: quantity({ what: "electrode array area (m²)", range: "between 1e-9 and 1e-2 m² (0.001–10 000 mm²)", min: 1e-9, max: 1e-2 }).optional(),
-      /** Thermal conductivity of the substrate under the electrodes and of the lid, W/(m·K) (defaults glass and PDMS). */
-      substrateThermalConductivity: conductivityOfWall("substrate").optional(),
-      lidThermalConductivity: conductivityOfWall("lid").optional(),
-    }).superRefine((d, ctx) => {
-      const h = d.geometry.height;
-      if (h !== undefined && !(h < d.channelHeight)) {
-        ctx.addIssue({ code: "custom", path: ["geometry", "height"], message: `height above the electrodes (m) must lie inside the channel, from 0 up to below the channel height ${describeValue(d.channelHeight)} m (got ${describeValue(h)})` });
-      }
-      if (d.generatorMinFrequency !== undefined && d.generatorMaxFrequency !== undefined && !(d.generatorMaxFrequency > d.generatorMinFrequency)) {
-        ctx.addIssue({ code: "custom", path: ["generatorMaxFrequency"], message: `generator highest frequency (${describeValue(d.generatorMaxFrequency)} Hz) must be above its lowest (${describeValue(d.generatorMinFrequency)} Hz)` });
-      }
-    }),
+    /** Electrodes, generator (limit and optional frequency range) and drive (lib/devices/schema.ts), plus the heating inputs. */
+    device: z
+      .object({
+        ...plannerDeviceShape,
+        /** Electrode array area for the array-heating estimate, m² (default 1 mm²). */
+        electrodeArrayArea: quantity({ what: "electrode array area (m²)", range: "between 1e-9 and 1e-2 m² (0.001–10 000 mm²)", min: 1e-9, max: 1e-2 }).optional(),
+        /** Thermal conductivity of the substrate under the electrodes and of the lid, W/(m·K) (defaults glass and PDMS). */
+        substrateThermalConductivity: conductivityOfWall("substrate").optional(),
+        lidThermalConductivity: conductivityOfWall("lid").optional(),
+      })
+      .superRefine((d, ctx) => {
+        plannerDeviceChecks(d, ctx);
+        const h = d.geometry.height;
+        if (h !== undefined && !(h < d.channelHeight)) {
+          ctx.addIssue({ code: "custom", path: ["geometry", "height"], message: `height above the electrodes (m) must lie inside the channel, from 0 up to below the channel height ${describeValue(d.channelHeight)} m (got ${describeValue(h)})` });
+        }
+      }),
     constraints: z
       .object({
         maxTemperatureRise: quantity({ what: "temperature-rise limit (K)", range: "greater than zero and at most 50 K", min: 0, max: 50, exclusiveMin: true }).optional(),

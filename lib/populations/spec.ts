@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { describeValue, quantity } from "@/lib/dielectric";
 import { formatIn } from "@/lib/units/lab";
+import { siRangeText } from "@/lib/units/quantity-field";
 import { CV_RANGE, DISTRIBUTIONS, POPULATION_FIELDS, setValueAt, SHELL_MODELS, type Distribution, type PopulationField, type ShellModel } from "./fields";
 
 /**
@@ -51,15 +52,6 @@ type DeepOptionalDistribution<T> = T extends SpreadParam
   : T extends object
     ? { [K in keyof T]: DeepOptionalDistribution<T[K]> }
     : T;
-
-/**
- * The allowed range of a field in words, in the lab unit and SI.
- * @example siRangeText(populationField("radius")!) // "between 0.1 µm and 100 µm (1e-7 to 0.0001 m)"
- */
-export function siRangeText(f: PopulationField): string {
-  if (!f.si) return `between ${formatIn(f.unit, f.min, 6)} and ${formatIn(f.unit, f.max, 6)}`;
-  return `between ${formatIn(f.unit, f.min, 6)} and ${formatIn(f.unit, f.max, 6)} (${f.min} to ${f.max} ${f.si})`;
-}
 
 function leafSchema(f: PopulationField) {
   const unit = f.si || "relative";

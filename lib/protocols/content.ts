@@ -1,5 +1,9 @@
 import { z } from "zod";
+import { protocolBufferSchema } from "@/lib/buffers/schema";
+import { protocolDeviceSchema } from "@/lib/devices/schema";
 import { populationSpecSchema } from "@/lib/populations/spec";
+
+export { protocolRecipeSchema as bufferRecipeSchema, recipeAdditionSchema } from "@/lib/buffers/schema";
 
 /**
  * The frozen content of one protocol version: everything needed to reproduce its prediction and to run it at the
@@ -12,25 +16,6 @@ const populationRef = z.object({
   /** Library item this came from (id and item version), when picked from the library. */
   libraryRef: z.object({ id: z.number().int(), version: z.number().int() }).optional(),
   spec: populationSpecSchema,
-});
-
-/** One addition to the sugar base: a solid salt (grams) or a stock solution (millilitres) per litre of buffer. */
-export const recipeAdditionSchema = z.object({
-  label: z.string().min(1).max(80),
-  kind: z.enum(["solid", "stock"]),
-  /** Per litre of final buffer: grams for a solid, millilitres for a stock. */
-  perLitre: z.number().min(0).max(1000),
-});
-
-/** A buffer recipe per litre, with its predicted properties. */
-export const bufferRecipeSchema = z.object({
-  sucrosePercentWV: z.number().min(0).max(30),
-  glucosePercentWV: z.number().min(0).max(10),
-  additions: z.array(recipeAdditionSchema).max(10),
-  /** Predicted conductivity at 25 °C, S/m. */
-  conductivity25: z.number().positive(),
-  /** Predicted osmolality, mOsm/kg. */
-  osmolality: z.number().positive(),
 });
 
 export const warningSchema = z.object({
@@ -65,26 +50,8 @@ export const selectionSchema = z.object({
 
 export const protocolContentSchema = z.object({
   populations: z.object({ target: populationRef, other: populationRef }),
-  buffer: z.object({
-    name: z.string().max(120).optional(),
-    libraryRef: z.object({ id: z.number().int(), version: z.number().int() }).optional(),
-    recipe: bufferRecipeSchema.nullable(),
-    /** Target conductivity at 25 °C (S/m) and the accepted tolerance (fraction, 0.1 = ±10 %). */
-    targetConductivity25: z.number().positive(),
-    tolerance: z.number().min(0.01).max(0.5),
-    osmolality: z.number().positive().nullable(),
-    maxMinutesInBuffer: z.number().int().min(1).max(240),
-  }),
-  device: z.object({
-    name: z.string().max(120).optional(),
-    libraryRef: z.object({ id: z.number().int(), version: z.number().int() }).optional(),
-    /** Geometry preset name and its dimensions (m), or "user-gradient" with the pasted factor. */
-    geometry: z.string(),
-    dimensions: z.record(z.string(), z.number()),
-    gradientFactor: z.number().positive(),
-    gradientSource: z.string(),
-    maxVoltageVpp: z.number().positive(),
-  }),
+  buffer: protocolBufferSchema,
+  device: protocolDeviceSchema,
   sortDesign: z.string(),
   inputMix: z.object({ targetFraction: z.number().min(0).max(1) }),
   limits: z.record(z.string(), z.number()),

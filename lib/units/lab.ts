@@ -21,7 +21,13 @@ export type Quantity =
   | "velocity"
   | "angularVelocity"
   | "viscosity"
-  | "fieldStrength";
+  | "fieldStrength"
+  | "concentration"
+  | "amountPerLitre"
+  | "volume"
+  | "time"
+  | "flowRate"
+  | "voltagePeakToPeak";
 
 /** One unit: its symbol, the quantity and SI unit it belongs to, and SI = value × factor + offset. */
 export interface LabUnit {
@@ -74,6 +80,12 @@ export const LAB_UNITS = {
   Pa_s: u("Pa·s", "viscosity", "Pa·s", 1, "pascal seconds"),
   V_m: u("V/m", "fieldStrength", "V/m", 1, "volts per metre"),
   kV_m: u("kV/m", "fieldStrength", "V/m", 1e3, "kilovolts per metre"),
+  Vpp: u("Vpp", "voltagePeakToPeak", "Vpp", 1, "volts peak to peak"),
+  pct_wv: u("% w/v", "concentration", "% w/v", 1, "per cent weight per volume"),
+  per_L: u("g or mL per L", "amountPerLitre", "g or mL per L", 1, "grams of a salt or millilitres of a stock per litre"),
+  mL: u("mL", "volume", "m³", 1e-6, "millilitres"),
+  minute: u("min", "time", "min", 1, "minutes"),
+  uL_min: u("µL/min", "flowRate", "m³/s", 1e-9 / 60, "microlitres per minute"),
 } as const satisfies Record<string, LabUnit>;
 
 export type UnitId = keyof typeof LAB_UNITS;
@@ -96,6 +108,12 @@ export const UNITS_BY_QUANTITY: Record<Quantity, readonly UnitId[]> = {
   angularVelocity: ["rad_s"],
   viscosity: ["mPa_s", "Pa_s"],
   fieldStrength: ["kV_m", "V_m"],
+  concentration: ["pct_wv"],
+  amountPerLitre: ["per_L"],
+  volume: ["mL"],
+  time: ["minute"],
+  flowRate: ["uL_min"],
+  voltagePeakToPeak: ["Vpp"],
 };
 
 /**

@@ -72,7 +72,7 @@ test("libraries: buffers and devices read in lab units, and a bad value is refus
   await page.getByLabel("Target conductivity at 25 °C").fill("5000");
   await page.getByLabel("Change note").fill("test entry");
   await page.getByRole("button", { name: "Create buffer" }).click();
-  await expect(page.getByText("Target conductivity: enter a number between 0.01 and 2000 mS/m.")).toBeVisible();
+  await expect(page.getByText("Target conductivity at 25 °C (mS/m): enter a number between 0.01 and 2000 mS/m.")).toBeVisible();
   await expect(page.getByTestId("recipe-prediction")).toContainText("mOsm/kg");
   await snap(page, "library-buffer-new-error");
 

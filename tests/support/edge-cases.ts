@@ -13,7 +13,7 @@ export interface EdgeCase {
  * @example edgeCases(1, 200).map((c) => c.label) // ["min", "max", "below min", "above max", "text", "null", "NaN", "numeric text"]
  */
 export function edgeCases(min: number, max: number): EdgeCase[] {
-  const step = (x: number) => Math.max(Math.abs(x) * 1e-3, (max - min) * 1e-9);
+  const step = (x: number) => Math.max(Math.abs(x) * 1e-3, (max - min) * 1e-6);
   return [
     { label: "min", value: min, inRange: true },
     { label: "max", value: max, inRange: true },

@@ -1,7 +1,9 @@
 import { z } from "zod";
 import { evaluateBuffer, SALTS, STOCKS, type BufferAddition, type BufferResult, type SaltKind, type StockKind } from "@/lib/dielectric";
 import { formatIn, tidy, toSI, fromSI } from "@/lib/units/lab";
-import { labNumber } from "../form-numbers";
+import { BUFFER_FIELDS as F, MAX_ADDITIONS } from "@/lib/buffers/fields";
+import { outOfRangeMessage } from "@/lib/units/lab-fields";
+import { labSchema, siNumber } from "@/lib/units/quantity-field";
 import { nameSchema, notesSchema, organisationSchema, versionMetaFormSchema } from "../schemas";
 import type { DisplayRow } from "../populations/content";
 
@@ -22,14 +24,14 @@ export function additionLabel(kind: AdditionKind): string {
 const additionSchema = z.object({
   kind: z.enum(ADDITION_KINDS, { error: `Addition: one of ${ADDITION_KINDS.join(", ")}.` }),
   /** Grams (salt) or millilitres (stock) per litre of sugar base. */
-  amountPerLitre: z.number({ error: "Amount: enter a number from 0 to 1000 (g or mL per litre)." }).min(0).max(1000),
+  amountPerLitre: siNumber(F.amountPerLitre),
 });
 
 /** A recipe per litre of sugar base. */
 export const bufferRecipeContentSchema = z.object({
-  sucrosePercentWV: z.number().min(0).max(30),
-  glucosePercentWV: z.number().min(0).max(30),
-  additions: z.array(additionSchema).max(20),
+  sucrosePercentWV: siNumber(F.sucrosePercentWV),
+  glucosePercentWV: siNumber(F.glucosePercentWV),
+  additions: z.array(additionSchema).max(MAX_ADDITIONS, { error: `at most ${MAX_ADDITIONS} additions` }),
 });
 
 /** The stored content of one buffer version. SI: S/m, osmol/kg, °C. */
@@ -38,14 +40,14 @@ export const bufferContentSchema = z.object({
   organisation: organisationSchema.default(""),
   recipe: bufferRecipeContentSchema.nullable(),
   /** Target conductivity at 25 °C, S/m. */
-  targetConductivity25: z.number().min(1e-5).max(2),
+  targetConductivity25: siNumber(F.conductivity, "target conductivity at 25 °C"),
   /** Accepted deviation from the target, fraction (0.1 = ±10 %). */
-  tolerance: z.number().min(0.01).max(0.5).default(0.1),
+  tolerance: siNumber(F.tolerance).default(F.tolerance.default),
   /** A meter reading and the temperature it was taken at. */
-  measured: z.object({ conductivity: z.number().min(1e-6).max(2), temperatureC: z.number().min(0).max(60) }).nullable(),
+  measured: z.object({ conductivity: siNumber(F.conductivity, "measured conductivity"), temperatureC: siNumber(F.temperatureC, "measurement temperature") }).nullable(),
   /** Measured osmolality, osmol/kg. */
-  osmolality: z.number().min(0.01).max(2).nullable(),
-  maxMinutesInBuffer: z.number().int().min(1).max(240).default(45),
+  osmolality: siNumber(F.osmolality).nullable(),
+  maxMinutesInBuffer: siNumber(F.maxMinutesInBuffer).default(F.maxMinutesInBuffer.default),
   notes: notesSchema.default(""),
 });
 export type BufferContent = z.infer<typeof bufferContentSchema>;
@@ -57,24 +59,24 @@ export const bufferFormSchema = versionMetaFormSchema.extend({
   name: nameSchema,
   organisation: organisationSchema,
   useRecipe: z.boolean(),
-  sucrosePercentWV: optional(z.number({ error: "Sucrose: enter a number between 0 and 30 % w/v." }).min(0, { error: "Sucrose: enter a number between 0 and 30 % w/v." }).max(30, { error: "Sucrose: enter a number between 0 and 30 % w/v." })),
-  glucosePercentWV: optional(z.number({ error: "Glucose: enter a number between 0 and 30 % w/v." }).min(0, { error: "Glucose: enter a number between 0 and 30 % w/v." }).max(30, { error: "Glucose: enter a number between 0 and 30 % w/v." })),
+  sucrosePercentWV: optional(labSchema(F.sucrosePercentWV)),
+  glucosePercentWV: optional(labSchema(F.glucosePercentWV)),
   additions: z.array(
     z.object({
       kind: z.enum(ADDITION_KINDS, { error: "Addition: choose a salt or stock." }),
-      amountPerLitre: z.number({ error: "Amount: enter a number from 0 to 1000 (g or mL per litre)." }).min(0, { error: "Amount: enter a number from 0 to 1000 (g or mL per litre)." }).max(1000, { error: "Amount: enter a number from 0 to 1000 (g or mL per litre)." }),
+      amountPerLitre: labSchema(F.amountPerLitre),
     }),
-  ).max(20, { error: "At most 20 additions." }),
-  targetConductivity: labNumber("Target conductivity", "mS_m", 1e-5, 2),
-  tolerancePercent: z.number({ error: "Tolerance: enter a number between 1 and 50 %." }).min(1, { error: "Tolerance: enter a number between 1 and 50 %." }).max(50, { error: "Tolerance: enter a number between 1 and 50 %." }),
-  measuredConductivity: optional(labNumber("Measured conductivity", "mS_m", 1e-6, 2)),
-  measuredTemperatureC: optional(z.number({ error: "Measurement temperature: enter a number between 0 and 60 °C." }).min(0, { error: "Measurement temperature: enter a number between 0 and 60 °C." }).max(60, { error: "Measurement temperature: enter a number between 0 and 60 °C." })),
-  osmolality: optional(labNumber("Osmolality", "mOsm_kg", 0.01, 2)),
-  maxMinutesInBuffer: z.number({ error: "Time in buffer: enter whole minutes from 1 to 240." }).int({ error: "Time in buffer: enter whole minutes from 1 to 240." }).min(1, { error: "Time in buffer: enter whole minutes from 1 to 240." }).max(240, { error: "Time in buffer: enter whole minutes from 1 to 240." }),
+  ).max(MAX_ADDITIONS, { error: `At most ${MAX_ADDITIONS} additions.` }),
+  targetConductivity: labSchema({ ...F.conductivity, label: "Target conductivity at 25 °C" }),
+  tolerancePercent: labSchema(F.tolerance),
+  measuredConductivity: optional(labSchema({ ...F.conductivity, label: "Measured conductivity" })),
+  measuredTemperatureC: optional(labSchema({ ...F.temperatureC, label: "Measurement temperature" })),
+  osmolality: optional(labSchema(F.osmolality)),
+  maxMinutesInBuffer: labSchema(F.maxMinutesInBuffer),
   notes: notesSchema,
 }).superRefine((f, ctx) => {
-  if (f.useRecipe && f.sucrosePercentWV === undefined) ctx.addIssue({ code: "custom", path: ["sucrosePercentWV"], message: "Sucrose: enter a number between 0 and 30 % w/v (0 if none)." });
-  if (f.useRecipe && f.glucosePercentWV === undefined) ctx.addIssue({ code: "custom", path: ["glucosePercentWV"], message: "Glucose: enter a number between 0 and 30 % w/v (0 if none)." });
+  if (f.useRecipe && f.sucrosePercentWV === undefined) ctx.addIssue({ code: "custom", path: ["sucrosePercentWV"], message: `${outOfRangeMessage(F.sucrosePercentWV)} (0 if none)` });
+  if (f.useRecipe && f.glucosePercentWV === undefined) ctx.addIssue({ code: "custom", path: ["glucosePercentWV"], message: `${outOfRangeMessage(F.glucosePercentWV)} (0 if none)` });
   if ((f.measuredConductivity === undefined) !== (f.measuredTemperatureC === undefined))
     ctx.addIssue({ code: "custom", path: [f.measuredConductivity === undefined ? "measuredConductivity" : "measuredTemperatureC"], message: "A measured conductivity needs the temperature it was read at (and the other way round)." });
 });
@@ -106,7 +108,7 @@ export function bufferContentToForm(c: BufferContent): Omit<BufferForm, "provena
     useRecipe: c.recipe !== null,
     sucrosePercentWV: c.recipe?.sucrosePercentWV ?? 8.5,
     glucosePercentWV: c.recipe?.glucosePercentWV ?? 0.3,
-    additions: c.recipe?.additions ?? [],
+    additions: (c.recipe?.additions ?? []).map((a) => ({ ...a })),
     targetConductivity: tidy(fromSI("mS_m", c.targetConductivity25)),
     tolerancePercent: tidy(c.tolerance * 100),
     measuredConductivity: c.measured ? tidy(fromSI("mS_m", c.measured.conductivity)) : undefined,

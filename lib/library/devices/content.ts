@@ -1,7 +1,10 @@
 import { z } from "zod";
 import { interdigitatedField } from "@/lib/dielectric";
 import { formatIn, fromSI, tidy, toSI } from "@/lib/units/lab";
-import { labNumber } from "../form-numbers";
+import { DEVICE_FIELDS as F } from "@/lib/devices/fields";
+import { frequencyRangeIssue } from "@/lib/devices/schema";
+import { outOfRangeMessage } from "@/lib/units/lab-fields";
+import { labSchema, siNumber } from "@/lib/units/quantity-field";
 import { nameSchema, notesSchema, organisationSchema, versionMetaFormSchema } from "../schemas";
 import type { DisplayRow } from "../populations/content";
 
@@ -12,7 +15,6 @@ export const GEOMETRY_LABELS: Record<GeometryKind, string> = {
   "user-gradient": "Own field-gradient factor Γ",
 };
 
-const len = z.number().min(1e-6).max(5e-3);
 
 /** The stored content of one device-profile version. SI: m, m⁻³, V, Hz. */
 export const deviceContentSchema = z
@@ -20,13 +22,16 @@ export const deviceContentSchema = z
     name: nameSchema,
     organisation: organisationSchema.default(""),
     geometry: z.discriminatedUnion("kind", [
-      z.object({ kind: z.literal("interdigitated"), electrodeWidth: len, electrodeGap: len, channelHeight: len }),
-      z.object({ kind: z.literal("user-gradient"), gradientFactor: z.number().min(1e6).max(1e25), gradientSource: z.string().trim().min(3).max(500), electrodeGap: len, channelHeight: len }),
+      z.object({ kind: z.literal("interdigitated"), electrodeWidth: siNumber(F.electrodeWidth), electrodeGap: siNumber(F.electrodeGap), channelHeight: siNumber(F.channelHeight) }),
+      z.object({ kind: z.literal("user-gradient"), gradientFactor: siNumber(F.gradientFactor), gradientSource: z.string().trim().min(3).max(500), electrodeGap: siNumber(F.electrodeGap), channelHeight: siNumber(F.channelHeight) }),
     ]),
-    generator: z.object({ maxVoltageVpp: z.number().min(0.1).max(200), minFrequency: z.number().min(1).max(1e9), maxFrequency: z.number().min(1).max(1e9) }),
+    generator: z.object({ maxVoltageVpp: siNumber(F.maxVoltageVpp), minFrequency: siNumber(F.minFrequency), maxFrequency: siNumber(F.maxFrequency) }),
     notes: notesSchema.default(""),
   })
-  .refine((d) => d.generator.minFrequency < d.generator.maxFrequency, { path: ["generator", "maxFrequency"], error: "The highest frequency must be above the lowest." });
+  .superRefine((d, ctx) => {
+    const issue = frequencyRangeIssue(d.generator);
+    if (issue) ctx.addIssue({ code: "custom", path: ["generator", "maxFrequency"], message: issue });
+  });
 export type DeviceContent = z.infer<typeof deviceContentSchema>;
 
 /** The device form in lab units (µm, m⁻³, Vpp, kHz, MHz), for the browser and the server action. */
@@ -35,25 +40,25 @@ export const deviceFormSchema = versionMetaFormSchema
     name: nameSchema,
     organisation: organisationSchema,
     geometryKind: z.enum(GEOMETRY_KINDS, { error: "Geometry: choose the preset or your own Γ." }),
-    electrodeWidth: labNumber("Electrode width", "um", 1e-6, 5e-3).optional(),
-    electrodeGap: labNumber("Electrode gap", "um", 1e-6, 5e-3),
-    channelHeight: labNumber("Channel height", "um", 1e-6, 5e-3),
-    gradientFactor: labNumber("Field-gradient factor Γ", "per_m3", 1e6, 1e25).optional(),
+    electrodeWidth: labSchema(F.electrodeWidth).optional(),
+    electrodeGap: labSchema(F.electrodeGap),
+    channelHeight: labSchema(F.channelHeight),
+    gradientFactor: labSchema(F.gradientFactor).optional(),
     gradientSource: z.string().trim().max(500, { error: "Source of Γ: at most 500 characters." }),
-    maxVoltageVpp: labNumber("Generator limit", "V", 0.1, 200),
-    minFrequencyKHz: labNumber("Lowest frequency", "kHz", 1, 1e9),
-    maxFrequencyMHz: labNumber("Highest frequency", "MHz", 1, 1e9),
+    maxVoltageVpp: labSchema(F.maxVoltageVpp),
+    minFrequencyKHz: labSchema(F.minFrequency),
+    maxFrequencyMHz: labSchema(F.maxFrequency),
     notes: notesSchema,
   })
   .superRefine((f, ctx) => {
     if (f.geometryKind === "interdigitated" && f.electrodeWidth === undefined)
-      ctx.addIssue({ code: "custom", path: ["electrodeWidth"], message: "Electrode width: enter a number between 1 and 5000 µm." });
+      ctx.addIssue({ code: "custom", path: ["electrodeWidth"], message: outOfRangeMessage(F.electrodeWidth) });
     if (f.geometryKind === "user-gradient" && f.gradientFactor === undefined)
-      ctx.addIssue({ code: "custom", path: ["gradientFactor"], message: "Field-gradient factor Γ: enter a number between 1e6 and 1e25 m⁻³." });
+      ctx.addIssue({ code: "custom", path: ["gradientFactor"], message: outOfRangeMessage(F.gradientFactor) });
     if (f.geometryKind === "user-gradient" && f.gradientSource.length < 3)
       ctx.addIssue({ code: "custom", path: ["gradientSource"], message: "Source of Γ: say where the value comes from (e.g. your field simulation), 3 to 500 characters." });
-    if (toSI("kHz", f.minFrequencyKHz) >= toSI("MHz", f.maxFrequencyMHz))
-      ctx.addIssue({ code: "custom", path: ["maxFrequencyMHz"], message: "Highest frequency: must be above the lowest frequency." });
+    const issue = frequencyRangeIssue({ minFrequency: toSI(F.minFrequency.unit, f.minFrequencyKHz), maxFrequency: toSI(F.maxFrequency.unit, f.maxFrequencyMHz) });
+    if (issue) ctx.addIssue({ code: "custom", path: ["maxFrequencyMHz"], message: `Highest generator frequency (MHz): ${issue}.` });
   });
 export type DeviceForm = z.input<typeof deviceFormSchema>;
 
@@ -118,7 +123,7 @@ export function describeDevice(c: DeviceContent): DisplayRow[] {
   rows.push({ key: "channelHeight", label: "Channel height", value: formatIn("um", g.channelHeight) });
   const grad = deviceGradient(c);
   rows.push({ key: "gamma", label: "Field-gradient factor Γ", value: `${formatIn("per_m3", grad.gamma, 3)} — ${grad.source}` });
-  rows.push({ key: "maxVoltage", label: "Generator limit", value: `${c.generator.maxVoltageVpp} Vpp` });
+  rows.push({ key: "maxVoltage", label: "Generator limit", value: formatIn("Vpp", c.generator.maxVoltageVpp) });
   rows.push({ key: "frequencyRange", label: "Frequency range", value: `${formatIn("kHz", c.generator.minFrequency)} to ${formatIn("MHz", c.generator.maxFrequency)}` });
   rows.push({ key: "notes", label: "Notes", value: c.notes || "—" });
   return rows;

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { bufferContentSchema, bufferFormSchema, bufferFormToContent } from "@/lib/library/buffers/content";
 import { deviceContentSchema, deviceFormSchema, deviceFormToContent, deviceGradient } from "@/lib/library/devices/content";
 import { BLANK, formDefaults } from "@/lib/library/form-defaults";
-import { labNumber } from "@/lib/library/form-numbers";
+import { labNumber } from "@/lib/units/lab-fields";
 import { describePopulation, populationContentSchema, populationFormSchema, populationFormToContent } from "@/lib/library/populations/content";
 import { diffVersions } from "@/lib/library/diff";
 import type { ItemVersion } from "@/lib/library/mapper";
@@ -55,13 +55,14 @@ describe("library forms (lab units) and stored content (SI)", () => {
     expect(deviceGradient(content).gamma).toBeGreaterThan(6e13);
     expect(deviceGradient(content).gamma).toBeLessThan(7.2e13);
     const bad = deviceFormSchema.safeParse({ ...form, minFrequencyKHz: 50_000, maxFrequencyMHz: 20 });
-    expect(bad.error?.issues.map((i) => i.message)).toContain("Highest frequency: must be above the lowest frequency.");
+    expect(bad.error?.issues.map((i) => i.message)).toContain("Highest generator frequency (MHz): the highest generator frequency (20000000 Hz) must be above the lowest (50000000 Hz).");
   });
 
   it("labNumber states the range in the field's own unit", () => {
-    expect(labNumber("Conductivity", "uS_cm", 1e-4, 1).safeParse(20_000).error?.issues[0].message).toBe("Conductivity: enter a number between 1 and 10000 µS/cm.");
-    expect(labNumber("Conductivity", "uS_cm", 1e-4, 1).safeParse(Number.NaN).success).toBe(false);
-    expect(labNumber("Conductivity", "uS_cm", 1e-4, 1).safeParse(10_000).success).toBe(true);
+    const conductivity = { label: "Conductivity", unit: "uS_cm", min: 1e-4, max: 1 } as const;
+    expect(labNumber(conductivity).safeParse(20_000).error?.issues[0].message).toBe("Conductivity (µS/cm): enter a number between 1 and 10000 µS/cm.");
+    expect(labNumber(conductivity).safeParse(Number.NaN).success).toBe(false);
+    expect(labNumber(conductivity).safeParse(10_000).success).toBe(true);
   });
 
   it("diffs two versions line by line in lab units", () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { windowsRequestSchema } from "@/lib/planner";
 import { bufferChoice, bufferStepSchema, defaultBuffer, toEngineRecipe } from "@/lib/planner-wizard/buffer-form";
-import { defaultDevice, deviceStepSchema, meanFlowSpeed } from "@/lib/planner-wizard/device-form";
+import { defaultDevice, deviceStepSchema, libraryDeviceToStep, meanFlowSpeed } from "@/lib/planner-wizard/device-form";
 import { defaultLimits, limitsStepSchema } from "@/lib/planner-wizard/limits-form";
 import { atOperating, readyInputs, toWindowsRequest } from "@/lib/planner-wizard/request";
 import { STARTING_POINTS } from "@/lib/planner-wizard/starting-points";
@@ -74,6 +74,23 @@ describe("planner request from the wizard's steps", () => {
     expect(req.medium.conductivity).toBeUndefined();
     expect(req.medium.conductivityRange).toEqual({ start: 0.001, stop: 0.1, points: 31 });
     expect(windowsRequestSchema.safeParse(req).success).toBe(true);
+  });
+
+  it("carries a library device's generator frequency range into the planner request", () => {
+    const device = libraryDeviceToStep({ name: "Chip", geometry: { kind: "interdigitated", electrodeWidth: 40e-6, electrodeGap: 40e-6, channelHeight: 50e-6 }, generator: { maxVoltageVpp: 20, minFrequency: 1e3, maxFrequency: 20e6 } }, { id: 3, version: 1 }, defaultDevice());
+    expect([device.minFrequency, device.maxFrequency]).toEqual([1, 20]); // 1 kHz and 20 MHz as the step shows them
+    const ready = readyInputs({ ...inputs(), device });
+    if (!ready.ok) throw new Error(ready.message);
+    const req = toWindowsRequest(ready);
+    expect(req.device).toMatchObject({ generatorMinFrequency: 1e3, generatorMaxFrequency: 20e6, maxVoltageVpp: 20 });
+    expect(windowsRequestSchema.safeParse(req).success).toBe(true);
+    // A plan without a stated generator range puts no bounds in the request.
+    const plain = readyInputs(inputs());
+    if (!plain.ok) throw new Error(plain.message);
+    expect(toWindowsRequest(plain).device).not.toHaveProperty("generatorMinFrequency");
+    // An inverted range is refused on the step, next to the highest frequency.
+    const bad = deviceStepSchema.safeParse({ ...device, minFrequency: 50_000, maxFrequency: 20 });
+    expect(bad.error?.issues[0].path).toEqual(["maxFrequency"]);
   });
 
   it("names the first incomplete step and counts completed steps", () => {
