@@ -1,5 +1,6 @@
 import knexFactory, { type Knex } from "knex";
 import { dbConfig } from "./config";
+import { markOutageErrors } from "./outage";
 
 const globalForDb = globalThis as unknown as { sievewrightDb?: Knex };
 
@@ -8,6 +9,7 @@ const globalForDb = globalThis as unknown as { sievewrightDb?: Knex };
  * @example const row = await db("users").where({ id: 1 }).first();
  */
 export const db: Knex = globalForDb.sievewrightDb ?? knexFactory(dbConfig());
+markOutageErrors(db);
 if (process.env.NODE_ENV !== "production") globalForDb.sievewrightDb = db;
 
 export type { Knex };

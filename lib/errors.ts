@@ -61,6 +61,18 @@ export class RateLimitedError extends DomainError {
   }
 }
 
+/** A service the request needs (the database) cannot be reached; try again later. Maps to 503 with Retry-After. */
+export class ServiceUnavailableError extends DomainError {
+  readonly status = 503;
+  readonly code = "service_unavailable";
+  constructor(
+    message = "The database is unavailable at the moment; nothing was read or saved. Try again in a minute.",
+    readonly retryAfterSeconds = 30,
+  ) {
+    super(message);
+  }
+}
+
 function summarise(issues: FieldIssue[]): string {
   if (issues.length === 0) return "The input is not valid.";
   const first = issues[0];

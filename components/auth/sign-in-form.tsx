@@ -6,6 +6,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { signInSchema, type SignInInput } from "@/lib/users/schemas";
+import { SIGN_IN_UNAVAILABLE } from "@/lib/http/outage-codes";
 import { useHydrated } from "@/components/forms/use-hydrated";
 
 /** E-mail and password form; a refusal is shown in words, never as a crash. `callbackUrl` is a checked same-origin path. */
@@ -22,6 +23,10 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
   async function onSubmit(values: SignInInput) {
     setFailure(null);
     const result = await signIn("credentials", { ...values, callbackUrl, redirect: false });
+    if (result?.error === SIGN_IN_UNAVAILABLE) {
+      setFailure("Sign-in is unavailable: the service cannot reach its database. Your password was not checked; try again in a minute.");
+      return;
+    }
     if (!result || result.error) {
       // next-auth says "CredentialsSignin" for a wrong password; any other text is our own (when to try again).
       setFailure(

@@ -7,6 +7,8 @@ import { safeRedirectUrl } from "./redirect";
 import { endSession, startSession } from "./sessions";
 import { clientAddress, type HeaderSource } from "@/lib/http/client-address";
 import { signInSchema } from "@/lib/users/schemas";
+import { isDatabaseUnavailable } from "@/db/outage";
+import { SIGN_IN_UNAVAILABLE } from "@/lib/http/outage-codes";
 
 /**
  * next-auth configuration: credentials against the users table under the attempt limits; the JWT carries a
@@ -33,7 +35,7 @@ export const authOptions: NextAuthOptions = {
           return { id: String(user.id), email: user.email, name: user.name, role: user.role, sid };
         } catch (err) {
           // next-auth hands this text to the form as `error`; only our own words ever get there.
-          throw new Error(signInErrorText(err));
+          throw new Error(isDatabaseUnavailable(err) ? SIGN_IN_UNAVAILABLE : signInErrorText(err));
         }
       },
     }),

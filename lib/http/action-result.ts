@@ -1,4 +1,5 @@
 import { DomainError, InputError } from "@/lib/errors";
+import { asOutage } from "./outage";
 
 /** What every server action returns to its form: success, or messages keyed by field. */
 export type ActionResult<T = undefined> =
@@ -13,7 +14,8 @@ export type ActionResult<T = undefined> =
 export async function runAction<T>(body: () => Promise<ActionResult<T>>): Promise<ActionResult<T>> {
   try {
     return await body();
-  } catch (err) {
+  } catch (thrown) {
+    const err = asOutage(thrown);
     if (err instanceof InputError) {
       const fieldErrors: Record<string, string> = {};
       for (const issue of err.issues) fieldErrors[issue.path || "form"] ??= issue.message;

@@ -1,6 +1,7 @@
 import { currentUser } from "@/lib/auth/session";
 import { can, type Capability } from "@/lib/auth/roles";
 import { DomainError, ForbiddenError, InputError, UnauthenticatedError } from "@/lib/errors";
+import { asOutage } from "./outage";
 import { enforceRateLimit, findLiveToken, touchTokenLater } from "@/lib/tokens/service";
 import { findUserById, type User } from "@/lib/users/repo";
 
@@ -42,7 +43,8 @@ export async function authenticate(req: Request, capability: Capability): Promis
  * Maps any error to a JSON response: domain errors keep their status and message, others become a logged 500.
  * @example catch (err) { return errorResponse(err); }
  */
-export function errorResponse(err: unknown): Response {
+export function errorResponse(thrown: unknown): Response {
+  const err = asOutage(thrown);
   if (err instanceof DomainError) {
     const body: Record<string, unknown> = { error: err.code, message: err.message };
     if (err instanceof InputError) body.issues = err.issues;
