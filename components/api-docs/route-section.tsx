@@ -23,6 +23,13 @@ export function RouteSection({ route, baseUrl }: { route: RouteDoc; baseUrl: str
         <CodeBlock caption="curl">{curlCommand(`${baseUrl}${route.path}`, route.example.body)}</CodeBlock>
         <ExampleRunner path={route.path} body={route.example.body} operationId={route.operationId} />
       </div>
+      {route.binary && (
+        <div className="space-y-2 border-t border-paper-line pt-4" data-testid={`${route.operationId}-binary`}>
+          <h3 className="font-medium">Compact answer: {route.binary.mediaType}</h3>
+          <p className="text-sm leading-relaxed text-ink-soft">{route.binary.description}</p>
+          <CodeBlock caption="Python (pyarrow + pandas)">{route.binary.python(`${baseUrl}${route.path}`)}</CodeBlock>
+        </div>
+      )}
     </section>
   );
 }

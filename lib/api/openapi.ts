@@ -15,6 +15,7 @@ export const ERROR_RESPONSES = {
   "401": { code: "unauthenticated", description: "No session and no token, a malformed Authorization header, or a token that is unknown or revoked." },
   "403": { code: "forbidden", description: "Signed in, but the role may not use the computation API (technicians and admins)." },
   "413": { code: "too_large", description: `The body is larger than ${MAX_JSON_BYTES / 1048576} MiB (${MAX_JSON_BYTES} bytes).` },
+  "503": { code: "service_unavailable", description: "The database cannot be reached at the moment; nothing was read or saved. Retry after the number of seconds in the Retry-After header." },
   "429": { code: "rate_limited", description: "Too many requests for this token in the current minute; wait for the number of seconds in the Retry-After header." },
 } as const;
 
@@ -54,7 +55,7 @@ function errorResponses(): Record<string, unknown> {
   for (const [status, e] of Object.entries(ERROR_RESPONSES)) {
     out[status] = {
       description: e.description,
-      ...(status === "429" ? { headers: { "Retry-After": { description: "Seconds until the next minute window.", schema: { type: "integer" } } } } : {}),
+      ...(status === "429" || status === "503" ? { headers: { "Retry-After": { description: status === "429" ? "Seconds until the next minute window." : "Seconds to wait before trying again.", schema: { type: "integer" } } } } : {}),
       content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } },
     };
   }
@@ -65,7 +66,7 @@ function operation(route: RouteDoc): Record<string, unknown> {
   return {
     operationId: route.operationId,
     summary: route.summary,
-    description: route.description.join("\n\n"),
+    description: [...route.description, ...(route.binary ? [route.binary.description] : [])].join("\n\n"),
     requestBody: {
       required: true,
       content: {
@@ -82,7 +83,10 @@ function operation(route: RouteDoc): Record<string, unknown> {
           [ENGINE_VERSION_HEADER]: { description: "Version of the dielectric engine that computed the result.", schema: { type: "string" } },
           "Server-Timing": { description: "Milliseconds the server spent: read (body), compute (validation and engine), serialize (JSON), app (the whole request, authentication included).", schema: { type: "string" } },
         },
-        content: { "application/json": { schema: { $ref: `#/components/schemas/${route.responseName}` } } },
+        content: {
+          "application/json": { schema: { $ref: `#/components/schemas/${route.responseName}` } },
+          ...(route.binary ? { [route.binary.mediaType]: { schema: { type: "string", contentMediaType: route.binary.mediaType, description: route.binary.description } } } : {}),
+        },
       },
       ...errorResponses(),
     },

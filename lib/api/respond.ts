@@ -14,17 +14,26 @@ export const ENGINE_VERSION_HEADER = "x-engine-version";
  * @example apiRoute("api.compute", (req) => computeJson(req, computeSweep))
  */
 export async function computeJson(req: Request, compute: (body: unknown) => unknown): Promise<Response> {
+  return computeEncoded(req, compute, (result) => JSON.stringify(result), "application/json");
+}
+
+/**
+ * The same envelope for any encoding: `encode` turns the computed result into the body sent with `contentType`.
+ * @example computeEncoded(req, computeSweep, JSON.stringify, "application/json")
+ */
+export async function computeEncoded<T>(req: Request, compute: (body: unknown) => T, encode: (result: T) => BodyInit, contentType: string): Promise<Response> {
   const t0 = performance.now();
   const body = await readJson(req);
   const t1 = performance.now();
   const result = compute(body);
   const t2 = performance.now();
-  const json = JSON.stringify(result);
+  const encoded = encode(result);
   const t3 = performance.now();
-  return new Response(json, {
+  return new Response(encoded, {
     status: 200,
     headers: {
-      "content-type": "application/json",
+      "content-type": contentType,
+      vary: "accept",
       [ENGINE_VERSION_HEADER]: ENGINE_VERSION,
       "server-timing": `read;dur=${(t1 - t0).toFixed(2)}, compute;dur=${(t2 - t1).toFixed(2)}, serialize;dur=${(t3 - t2).toFixed(2)}`,
     },

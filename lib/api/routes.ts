@@ -6,6 +6,7 @@ import type { z } from "zod";
 import { LIMITS, spectraRequestSchema, sweepRequestSchema } from "@/lib/dielectric";
 import { PLANNER_LIMITS, windowsRequestSchema } from "@/lib/planner";
 import { SENSITIVITY_EXAMPLE, SPECTRA_EXAMPLE, SWEEP_EXAMPLE, WINDOWS_EXAMPLE, type ApiExample } from "./examples";
+import { ARROW_STREAM } from "./arrow";
 import { sensitivityRequestSchema } from "./windows";
 import { FIT_ROUTE_DOCS } from "./fit-docs";
 
@@ -29,6 +30,17 @@ export interface RouteDoc {
   responseName: string;
   responseSchema: JsonSchema;
   example: ApiExample;
+  /** A compact binary answer the route also gives, chosen with the Accept header. */
+  binary?: BinaryAlternative;
+}
+
+/** A binary response format offered besides JSON (content negotiation by Accept). */
+export interface BinaryAlternative {
+  mediaType: string;
+  /** What the bytes hold, in words (columns, units, order). */
+  description: string;
+  /** A runnable Python example reading the answer, given the route's full URL. */
+  python: (url: string) => string;
 }
 
 const numbers = (description: string): JsonSchema => ({ type: "array", items: { type: "number" }, description });
@@ -175,6 +187,29 @@ export const ROUTE_DOCS: RouteDoc[] = [
     responseName: "SweepResponse",
     responseSchema: SWEEP_RESPONSE_SCHEMA,
     example: SWEEP_EXAMPLE,
+    binary: {
+      mediaType: ARROW_STREAM,
+      description:
+        "Send Accept: application/vnd.apache.arrow.stream for the same result as an Apache Arrow IPC stream: one record batch with one row per grid point, row-major by conductivity like the JSON lists. Columns: conductivity (S/m, float64), frequency (Hz, float64) and one float64 column re:<particle id> per particle (Re[K], dimensionless). The schema metadata repeats the units, the grid shape and the engine version. pandas and pyarrow read it in one line, R with arrow::read_ipc_stream().",
+      python: (url) =>
+        [
+          "import json, os, urllib.request",
+          "import pyarrow as pa",
+          "",
+          `body = json.dumps(${JSON.stringify(SWEEP_EXAMPLE.body)}).encode()`,
+          `req = urllib.request.Request("${url}", data=body, method="POST", headers={`,
+          '    "Authorization": "Bearer " + os.environ["SIEVEWRIGHT_TOKEN"],',
+          '    "Content-Type": "application/json",',
+          `    "Accept": "${ARROW_STREAM}",`,
+          "})",
+          "with urllib.request.urlopen(req) as res:",
+          "    df = pa.ipc.open_stream(res.read()).read_pandas()",
+          "",
+          "# one map per particle: rows = conductivity (S/m), columns = frequency (Hz), values = Re[K]",
+          'viable = df.pivot(index="conductivity", columns="frequency", values="re:viable")',
+          "print(viable.shape)  # (31, 61)",
+        ].join("\n"),
+    },
   },
   {
     path: "/api/v1/windows",
