@@ -3,14 +3,16 @@
  * env (DB_*): it makes a throwaway API token for the demo developer, sends a 241 × 121 sweep of two double-shell
  * particles from 16 connections for about 10 s with autocannon, prints p50/p95/p99 latency and the error count, and
  * appends a row to bench/api-results.md. Start the app with a high RATE_LIMIT_PER_MINUTE (e.g. 1000000), or the
- * limiter will answer 429 and the run counts them as errors.
+ * limiter will answer 429 and the run counts them as errors. BENCH_FORMATS (default "json,arrow") picks the answer
+ * formats measured, one run each: JSON, and Apache Arrow IPC (Accept: application/vnd.apache.arrow.stream).
  */
-import { appendFileSync, existsSync, mkdirSync, writeFileSync } from "node:fs";
+import { appendFileSync, existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import { execSync } from "node:child_process";
 import { createRequire } from "node:module";
+import { tableFromIPC } from "apache-arrow";
 import { db } from "../db/knex";
-import { buildParticle, ENGINE_VERSION, PARTICLE_PRESETS } from "../lib/dielectric";
+import { buildParticle, PARTICLE_PRESETS } from "../lib/dielectric";
 import { createToken, revokeToken } from "../lib/tokens/service";
 import { findUserById } from "../lib/users/repo";
 
@@ -27,6 +29,9 @@ const DURATION_S = Number(process.env.BENCH_SECONDS ?? 10);
 const DEVELOPER = process.env.BENCH_USER_EMAIL ?? "dana.dev@example.test";
 const RESULTS = "bench/api-results.md";
 const TARGET_P95_MS = 100;
+const ARROW = "application/vnd.apache.arrow.stream";
+const FORMATS = (process.env.BENCH_FORMATS ?? "json,arrow").split(",").map((f) => f.trim()) as ("json" | "arrow")[];
+const FORMAT_SECTION = "## JSON and Arrow answers";
 
 const body = JSON.stringify({
   mediumPermittivity: 78.3,
@@ -54,9 +59,14 @@ async function makeToken(): Promise<{ id: number; secret: string; userId: number
 
 async function checkOnce(url: string, headers: Record<string, string>): Promise<void> {
   const res = await fetch(url, { method: "POST", headers, body });
-  const text = await res.text();
-  if (res.status !== 200) throw new Error(`Warm-up request answered ${res.status}: ${text.slice(0, 300)}`);
-  const json = JSON.parse(text) as { particles: { re: number[] }[] };
+  const bytes = new Uint8Array(await res.arrayBuffer());
+  if (res.status !== 200) throw new Error(`Warm-up request answered ${res.status}: ${new TextDecoder().decode(bytes).slice(0, 300)}`);
+  if (headers.accept === ARROW) {
+    const table = tableFromIPC(bytes);
+    if (table.numRows !== 241 * 121 || table.numCols !== 4) throw new Error("Warm-up Arrow answer has the wrong shape");
+    return;
+  }
+  const json = JSON.parse(new TextDecoder().decode(bytes)) as { particles: { re: number[] }[] };
   if (json.particles.length !== 2 || json.particles[0].re.length !== 241 * 121) throw new Error("Warm-up answer has the wrong shape");
 }
 
@@ -71,9 +81,19 @@ function commit(): string {
 async function main(): Promise<void> {
   if (!BASE) throw new Error("Set APP_BASE_URL to the running app, e.g. http://127.0.0.1:3000");
   const token = await makeToken();
-  const url = `${BASE}/api/v1/sweeps`;
-  const headers = { authorization: `Bearer ${token.secret}`, "content-type": "application/json" };
   try {
+    for (const format of FORMATS) await runFormat(format, token.secret);
+  } finally {
+    const user = (await findUserById(token.userId))!;
+    await revokeToken(user, token.id);
+    await db.destroy();
+  }
+}
+
+async function runFormat(format: "json" | "arrow", secret: string): Promise<void> {
+  const url = `${BASE}/api/v1/sweeps`;
+  const headers = { authorization: `Bearer ${secret}`, "content-type": "application/json", accept: format === "arrow" ? ARROW : "application/json" };
+  {
     for (let i = 0; i < 5; i++) await checkOnce(url, headers);
     const latencies: number[] = [];
     const phases = ["app", "read", "compute", "serialize"] as const;
@@ -121,7 +141,7 @@ async function main(): Promise<void> {
       s99: percentile(serverMs, 99),
       errors,
     };
-    console.log(`POST /api/v1/sweeps, 241 × 121, 2 double-shell particles, ${CONNECTIONS} connections, ${DURATION_S} s`);
+    console.log(`POST /api/v1/sweeps (${format}), 241 × 121, 2 double-shell particles, ${CONNECTIONS} connections, ${DURATION_S} s`);
     console.log(`  ${fig.requests} responses (${f(fig.rps)}/s); status counts ${JSON.stringify(Object.fromEntries(statuses))}`);
     console.log(`  latency at the client: p50 ${f(fig.p50)} ms, p95 ${f(fig.p95)} ms, p99 ${f(fig.p99)} ms`);
     console.log(`  server time (Server-Timing app;dur): p50 ${f(fig.s50)} ms, p95 ${f(fig.s95)} ms, p99 ${f(fig.s99)} ms`);
@@ -153,15 +173,27 @@ async function main(): Promise<void> {
       );
     }
     const machine = `${os.cpus().length}× ${os.cpus()[0]?.model.trim() ?? "cpu"}, Node ${process.version}`;
+    if (!readFileSync(RESULTS, "utf8").includes(FORMAT_SECTION)) {
+      appendFileSync(
+        RESULTS,
+        [
+          "",
+          FORMAT_SECTION,
+          "",
+          "From here on each run measures the JSON answer and the Apache Arrow IPC answer (Accept:",
+          "application/vnd.apache.arrow.stream) one after the other; `app processes` is how many app processes served it.",
+          "",
+          "| date (UTC) | commit | format | app processes | conns × s | responses | req/s | client p50 / p95 / p99 (ms) | server p50 / p95 / p99 (ms) | server p50 by phase (ms) | errors | load avg (1 min) at end |",
+          "|---|---|---|---|---|---|---|---|---|---|---|---|",
+          "",
+        ].join("\n"),
+      );
+    }
     appendFileSync(
       RESULTS,
-      `| ${new Date().toISOString().slice(0, 16).replace("T", " ")} | ${commit()} | ${ENGINE_VERSION} | ${machine} | ${CONNECTIONS} × ${DURATION_S} | ${fig.requests} | ${f(fig.rps)} | ${f(fig.p50)} / ${f(fig.p95)} / ${f(fig.p99)} | ${f(fig.s50)} / ${f(fig.s95)} / ${f(fig.s99)} | ${phaseNote} | ${errors} | ${os.loadavg()[0].toFixed(1)} |\n`,
+      `| ${new Date().toISOString().slice(0, 16).replace("T", " ")} | ${commit()} | ${format} | ${process.env.BENCH_APP_PROCESSES ?? "?"} | ${CONNECTIONS} × ${DURATION_S} | ${fig.requests} | ${f(fig.rps)} | ${f(fig.p50)} / ${f(fig.p95)} / ${f(fig.p99)} | ${f(fig.s50)} / ${f(fig.s95)} / ${f(fig.s99)} | ${phaseNote} | ${errors} | ${os.loadavg()[0].toFixed(1)} |\n`,
     );
-    console.log(`  appended to ${RESULTS}`);
-  } finally {
-    const user = (await findUserById(token.userId))!;
-    await revokeToken(user, token.id);
-    await db.destroy();
+    console.log(`  appended to ${RESULTS} (${machine})`);
   }
 }
 

@@ -220,10 +220,13 @@ test.describe("public JSON API", () => {
     await expect(page.getByRole("heading", { name: "Computation API" })).toBeVisible();
     for (const ex of API_EXAMPLES) {
       const section = page.locator("section", { has: page.getByRole("heading", { name: `Example: ${ex.summary}` }) });
-      await expect(section.locator("figure pre")).toContainText(`curl -sS -X POST`);
-      await expect(section.locator("figure pre")).toContainText(ex.path);
+      await expect(section.locator("figure pre").first()).toContainText(`curl -sS -X POST`);
+      await expect(section.locator("figure pre").first()).toContainText(ex.path);
       await expect(section.getByRole("button", { name: "Run this example" })).toBeVisible();
     }
+    const arrow = page.getByTestId("evaluateSweep-binary");
+    await expect(arrow).toContainText("application/vnd.apache.arrow.stream");
+    await expect(arrow.locator("pre")).toContainText("pa.ipc.open_stream(res.read()).read_pandas()");
     await expect(page.getByRole("link", { name: "Settings" }).first()).toBeVisible();
     await expect(page.getByText("particles[0].radius").first()).toBeVisible();
     const runner = page.getByTestId("runner-evaluateSweep");
