@@ -48,7 +48,8 @@ if [ "$MODE" = "dev" ]; then
 else
   say "Building (next build)"
   node node_modules/next/dist/bin/next build || die "next build failed."
-  node node_modules/next/dist/bin/next start -p "$APP_PORT" -H 127.0.0.1 & PIDS+=("$!")
+  # One app process per core (APP_WORKERS, default "auto"); scripts/serve.ts is a Node cluster primary.
+  NODE_ENV=production node --import tsx scripts/serve.ts & PIDS+=("$!")
 fi
 APP_PID="${PIDS[-1]}"
 for _ in $(seq 1 100); do port_free "$APP_PORT" || break; sleep 0.3; done
