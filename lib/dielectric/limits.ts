@@ -8,6 +8,8 @@ export const LIMITS = {
   /** Particle outer radius, m (1 nm … 1 mm). */
   minRadius: 1e-9,
   maxRadius: 1e-3,
+  /** Thinnest shell, m (0.1 nm: thinner than any molecular layer; also keeps the shell ratios finite). */
+  minShellThickness: 1e-10,
   /** Relative permittivity of any explicitly given material. */
   minPermittivity: 1,
   maxPermittivity: 1e6,

@@ -69,7 +69,7 @@ const materialSchema = (what: string) =>
     error: (iss) => `${what} must be an object { permittivity, conductivity } (got ${describeValue(iss.input)})`,
   });
 
-const thickness = quantity({ what: "shell thickness (m)", range: "greater than zero and at most 1 mm", min: 0, max: LIMITS.maxRadius, exclusiveMin: true });
+const thickness = quantity({ what: "shell thickness (m)", range: "at least 0.1 nm and at most 1 mm (1e-10 to 1e-3 m)", min: LIMITS.minShellThickness, max: LIMITS.maxRadius });
 
 const shellFormsText = "a shell is given either as { thickness, permittivity, conductivity } or, for a thin membrane, as { thickness, capacitance, conductance }, not a mix";
 

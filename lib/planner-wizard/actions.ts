@@ -5,15 +5,21 @@ import { revalidatePath } from "next/cache";
 import { requireActionUser } from "@/lib/auth/session";
 import { runAction, type ActionResult } from "@/lib/http/action-result";
 import { InputError } from "@/lib/errors";
+import { formProblem } from "@/lib/http/form-outcome";
 import { saveAsProtocol } from "./save-service";
 import { discardDraft, saveStepInputs, startDraft } from "./service";
 import { isStepSlug } from "./steps";
 
-/** Starts a new planner draft and opens its first step. */
+/** Starts a new planner draft and opens its first step; a refusal comes back to the planner page as ?problem=. */
 export async function startDraftAction(): Promise<void> {
-  const user = await requireActionUser("plan.run");
-  const draft = await startDraft(user);
-  redirect(`/planner/${draft.id}/populations`);
+  let target: string;
+  try {
+    const user = await requireActionUser("plan.run");
+    target = `/planner/${(await startDraft(user)).id}/populations`;
+  } catch (err) {
+    target = `/planner?problem=${formProblem(err)}`;
+  }
+  redirect(target);
 }
 
 /**
@@ -30,10 +36,14 @@ export async function saveStepAction(draftId: number, step: string, values: unkn
   });
 }
 
-/** Deletes one of the user's drafts (form data: draftId). */
+/** Deletes one of the user's drafts (form data: draftId); a refusal comes back to the planner page as ?problem=. */
 export async function discardDraftAction(form: FormData): Promise<void> {
-  const user = await requireActionUser("plan.run");
-  await discardDraft(user, Number(form.get("draftId")));
+  try {
+    const user = await requireActionUser("plan.run");
+    await discardDraft(user, Number(form?.get?.("draftId")));
+  } catch (err) {
+    redirect(`/planner?problem=${formProblem(err)}`);
+  }
   revalidatePath("/planner");
 }
 

@@ -4,11 +4,13 @@ import { requirePageUser } from "@/lib/auth/session";
 import { startDraftAction } from "@/lib/planner-wizard/actions";
 import { listOwnDrafts } from "@/lib/planner-wizard/service";
 import { completedSteps } from "@/lib/planner-wizard/progress";
+import { formProblemText } from "@/lib/http/form-outcome";
 
 export const metadata: Metadata = { title: "Planner" };
 
-export default async function PlannerLandingPage() {
+export default async function PlannerLandingPage({ searchParams }: { searchParams: Promise<{ problem?: string | string[] }> }) {
   const user = await requirePageUser("plan.run");
+  const problem = formProblemText((await searchParams).problem);
   const drafts = await listOwnDrafts(user);
   return (
     <div className="max-w-4xl space-y-6">
@@ -20,6 +22,11 @@ export default async function PlannerLandingPage() {
           as you type, so you can leave and resume here.
         </p>
       </header>
+      {problem && (
+        <p className="rounded-md border border-danger/30 bg-danger-light p-2 text-sm text-danger" data-testid="planner-problem">
+          {problem}
+        </p>
+      )}
       <form action={startDraftAction}>
         <button className="btn" type="submit">Start a new plan</button>
       </form>
