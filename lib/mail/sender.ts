@@ -57,7 +57,7 @@ export async function claimDueMail(opts: SenderOptions = {}): Promise<Claim> {
   const token = randomUUID();
   const batch = opts.batch ?? 20;
   const leaseMs = opts.leaseMs ?? DEFAULT_LEASE_MS;
-  await db.transaction(async (trx) => {
+  await retryOnDeadlock(() => db.transaction(async (trx) => {
     const due = await trx("mail_outbox")
       .select("id")
       .where({ status: "pending" })
@@ -71,7 +71,7 @@ export async function claimDueMail(opts: SenderOptions = {}): Promise<Claim> {
     await trx("mail_outbox")
       .whereIn("id", due.map((r) => r.id))
       .update({ claim_token: token, claimed_until: leaseUntil(leaseMs) });
-  });
+  }));
   const rows = await db("mail_outbox")
     .select("id", "to_address", "subject", "body_text", "body_html", "attempts")
     .where({ claim_token: token, status: "pending" })
@@ -92,7 +92,9 @@ export async function sendClaimed(transport: Transporter, claim: Claim, opts: Se
   let skipped = 0;
   for (const row of claim.rows) {
     const mine = () => db("mail_outbox").where({ id: row.id, claim_token: claim.token, status: "pending" });
-    const renewed = await mine().andWhere("claimed_until", ">", db.fn.now(3)).update({ claimed_until: leaseUntil(leaseMs) });
+    const renewed = await retryOnDeadlock(() =>
+      mine().andWhere("claimed_until", ">", db.fn.now(3)).update({ claimed_until: leaseUntil(leaseMs) }),
+    );
     if (renewed !== 1) {
       skipped++;
       continue;
@@ -109,7 +111,7 @@ export async function sendClaimed(transport: Transporter, claim: Claim, opts: Se
         }),
         deadlineMs,
       );
-      await mine().update({
+      await retryOnDeadlock(() => mine().update({
         status: "sent",
         attempts: row.attempts + 1,
         sent_at: db.fn.now(3),
@@ -117,18 +119,18 @@ export async function sendClaimed(transport: Transporter, claim: Claim, opts: Se
         last_error: null,
         claim_token: null,
         claimed_until: null,
-      });
+      }));
       sent++;
     } catch (err) {
       const attempts = row.attempts + 1;
-      await mine().update({
+      await retryOnDeadlock(() => mine().update({
         status: attempts >= MAX_ATTEMPTS ? "failed" : "pending",
         attempts,
         last_error: String((err as Error)?.message ?? err).slice(0, 2000),
         next_attempt_at: new Date(Date.now() + backoffMs(attempts)),
         claim_token: null,
         claimed_until: null,
-      });
+      }));
       failed++;
     }
   }
@@ -144,6 +146,23 @@ export async function deliverDueMail(transport: Transporter, opts: SenderOptions
   const claim = await claimDueMail(opts);
   if (claim.rows.length === 0) return { sent: 0, failed: 0, skipped: 0 };
   return sendClaimed(transport, claim, opts);
+}
+
+/**
+ * Runs one statement (or short transaction) again when InnoDB picks it as a deadlock victim or its lock wait times out
+ * (errno 1213 / 1205): two senders claiming and renewing rows of the same table can meet on an index lock. Each retry
+ * repeats the whole statement, whose WHERE clause still names the claim, so a retry never widens what it touches.
+ */
+async function retryOnDeadlock<T>(work: () => PromiseLike<T>, tries = 4): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await work();
+    } catch (err) {
+      const errno = (err as { errno?: number }).errno;
+      if ((errno !== 1213 && errno !== 1205) || attempt >= tries) throw err;
+      await new Promise((resolve) => setTimeout(resolve, 20 * attempt + Math.random() * 30));
+    }
+  }
 }
 
 function withDeadline<T>(work: Promise<T>, ms: number): Promise<T> {

@@ -19,6 +19,7 @@ import { closeDb, db, freshSchema } from "./support/db";
 const acting: { user: User | null } = { user: null };
 vi.mock("@/lib/auth/session", () => ({
   currentUser: async () => acting.user,
+  currentSessionId: async () => null,
   requirePageUser: async () => acting.user,
   requireActionUser: async (capability?: Capability) => {
     if (!acting.user) throw new UnauthenticatedError();
