@@ -78,8 +78,23 @@ test.describe("public JSON API", () => {
 
   test("every documented example runs with a token and returns 200 with the documented shape", async ({ request }) => {
     const doc = await (await request.get("/api/v1/openapi.json")).json();
-    const paths = Object.keys(doc.paths);
-    expect(paths.length).toBeGreaterThanOrEqual(2);
+    // JSON computations: a JSON example in, JSON out. The CSV forms take the same body as the JSON route with the same
+    // request schema, and answer text/csv.
+    const post = (path: string) => doc.paths[path].post;
+    const jsonOut = (path: string) => post(path)?.responses?.["200"]?.content?.["application/json"];
+    const requestRef = (path: string) => post(path)?.requestBody?.content?.["application/json"]?.schema?.$ref;
+    const paths = Object.keys(doc.paths).filter((p) => jsonOut(p) && post(p).requestBody.content["application/json"].examples);
+    expect(paths.length).toBeGreaterThanOrEqual(4);
+    const csvPaths = Object.keys(doc.paths).filter((p) => post(p) && !jsonOut(p) && requestRef(p));
+    expect(csvPaths.length).toBeGreaterThanOrEqual(3);
+    for (const path of csvPaths) {
+      const twin = paths.find((p) => requestRef(p) === requestRef(path));
+      expect(twin, `${path} has a JSON twin with its request schema`).toBeTruthy();
+      const example = (Object.values(post(twin!).requestBody.content["application/json"].examples)[0] as { value: unknown }).value;
+      const res = await request.post(path, { headers: bearer(devToken), data: example });
+      expect(res.status(), `${path}: ${await res.text().then((t) => t.slice(0, 300))}`).toBe(200);
+      expect(res.headers()["content-type"], path).toContain("text/csv");
+    }
     for (const path of paths) {
       const content = doc.paths[path].post.requestBody.content["application/json"];
       const example = (Object.values(content.examples)[0] as { value: unknown }).value;
