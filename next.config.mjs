@@ -4,6 +4,19 @@ const nextConfig = {
   poweredByHeader: false,
   experimental: { authInterrupts: true },
   // Only for local sandboxes while others' work is in progress; npm test always typechecks (tsc and build).
+  // Static build files skip proxy.ts; they still must not be sniffed or framed.
+  async headers() {
+    return [
+      {
+        source: "/_next/:path*",
+        headers: [
+          { key: "X-Content-Type-Options", value: "nosniff" },
+          { key: "Referrer-Policy", value: "same-origin" },
+          { key: "X-Frame-Options", value: "DENY" },
+        ],
+      },
+    ];
+  },
   typescript: { ignoreBuildErrors: process.env.SW_SKIP_TYPECHECK === "1" },
 };
 export default nextConfig;

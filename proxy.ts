@@ -1,8 +1,39 @@
-import { withAuth } from "next-auth/middleware";
+import { NextResponse, type NextFetchEvent, type NextRequest } from "next/server";
+import { withAuth, type NextRequestWithAuth } from "next-auth/middleware";
+import { newNonce, securityHeaders, servedOverHttps } from "@/lib/http/security-headers";
 
 /** Signed-out visitors to any signed-in page are sent to /login (roles are checked again on the server). */
-export default withAuth({ pages: { signIn: "/login" } });
+const authGate = withAuth({ pages: { signIn: "/login" } });
+
+/** Paths that need no session here: sign-in, the API (it answers 401 itself) and static files. */
+const PUBLIC_PATH = /^\/(login|api|_next|favicon\.ico|fonts|robots\.txt)(\/|$)/;
+
+/**
+ * Runs before every request: the sign-in gate for pages, then the security headers (CSP with a fresh nonce, no
+ * framing, nosniff, referrer and permissions policies) on every page, API answer, download and redirect. The nonce
+ * and the policy also go on the request, where Next reads them to put the nonce on its own inline scripts.
+ */
+export default async function proxy(req: NextRequest, event: NextFetchEvent): Promise<Response> {
+  const path = req.nextUrl.pathname;
+  const nonce = newNonce();
+  const headers = securityHeaders({
+    nonce,
+    dev: process.env.NODE_ENV !== "production",
+    https: servedOverHttps(),
+    kind: path.startsWith("/api/") ? "resource" : "document",
+  });
+  const gated = PUBLIC_PATH.test(path) ? null : await authGate(req as NextRequestWithAuth, event);
+  let res = gated instanceof Response ? gated : null;
+  if (!res) {
+    const forwarded = new Headers(req.headers);
+    forwarded.set("x-nonce", nonce);
+    forwarded.set("content-security-policy", headers["content-security-policy"]);
+    res = NextResponse.next({ request: { headers: forwarded } });
+  }
+  for (const [name, value] of Object.entries(headers)) res.headers.set(name, value);
+  return res;
+}
 
 export const config = {
-  matcher: ["/((?!login|api|_next|favicon.ico|fonts|robots.txt).*)"],
+  matcher: ["/((?!_next/static|_next/image).*)"],
 };

@@ -10,6 +10,9 @@ const inter = localFont({
   display: "swap",
 });
 
+/** Every page renders per request, so Next can put this request's CSP nonce on its inline scripts (see proxy.ts). */
+export const dynamic = "force-dynamic";
+
 export const metadata: Metadata = {
   title: { default: "Sievewright", template: "%s · Sievewright" },
   description: "Plan, sign off and run dielectrophoretic cell-sorting protocols.",

@@ -40,6 +40,18 @@ export class NotFoundError extends DomainError {
   readonly code = "not_found";
 }
 
+/** A signed-in, state-changing request that did not come from the app's own pages (cross-site). Maps to 403. */
+export class CrossSiteError extends DomainError {
+  readonly status = 403;
+  readonly code = "cross_site";
+}
+
+/** The request body is not of the media type the endpoint reads. Maps to 415. */
+export class UnsupportedMediaTypeError extends DomainError {
+  readonly status = 415;
+  readonly code = "unsupported_media_type";
+}
+
 /** Someone else changed the record first, or the state forbids the step. Maps to 409. */
 export class ConflictError extends DomainError {
   readonly status = 409;

@@ -9,6 +9,7 @@ import { clientAddress, type HeaderSource } from "@/lib/http/client-address";
 import { signInSchema } from "@/lib/users/schemas";
 import { isDatabaseUnavailable } from "@/db/outage";
 import { SIGN_IN_UNAVAILABLE } from "@/lib/http/outage-codes";
+import { servedOverHttps } from "@/lib/http/security-headers";
 
 /**
  * next-auth configuration: credentials against the users table under the attempt limits; the JWT carries a
@@ -18,6 +19,8 @@ import { SIGN_IN_UNAVAILABLE } from "@/lib/http/outage-codes";
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: authConfig().SESSION_MAX_HOURS * 60 * 60 },
   pages: { signIn: "/login" },
+  // Session and CSRF cookies get `Secure` (and the __Secure-/__Host- names) whenever the base URL is https.
+  useSecureCookies: servedOverHttps(),
   secret: process.env.NEXTAUTH_SECRET,
   providers: [
     CredentialsProvider({

@@ -2,6 +2,7 @@ import { currentUser } from "@/lib/auth/session";
 import { can, type Capability } from "@/lib/auth/roles";
 import { DomainError, ForbiddenError, InputError, UnauthenticatedError } from "@/lib/errors";
 import { asOutage } from "./outage";
+import { assertContentType, assertSameOrigin } from "@/lib/http/origin";
 import { enforceRateLimit, findLiveToken, touchTokenLater } from "@/lib/tokens/service";
 import { findUserById, type User } from "@/lib/users/repo";
 
@@ -61,17 +62,29 @@ export function errorResponse(thrown: unknown): Response {
   return Response.json({ error: "internal", message: "Something went wrong on the server; it has been logged." }, { status: 500 });
 }
 
+/** Per-route options of apiRoute. */
+export interface ApiRouteOptions {
+  /** Media types a state-changing call may send (default: application/json). */
+  accepts?: readonly string[];
+}
+
 /**
- * Wraps a route handler: authenticate, run, map errors. The handler returns a plain object (sent as JSON) or a Response.
+ * Wraps a route handler: authenticate, refuse cross-site cookie calls, run, map errors. The handler returns a plain
+ * object (sent as JSON) or a Response.
  * @example export const POST = apiRoute("api.compute", async (req, caller) => ({ ok: true }));
  */
 export function apiRoute<C>(
   capability: Capability,
   handler: (req: Request, caller: ApiCaller, ctx: C) => Promise<unknown>,
+  options: ApiRouteOptions = {},
 ): (req: Request, ctx: C) => Promise<Response> {
   return async (req, ctx) => {
     try {
       const caller = await authenticate(req, capability);
+      if (caller.tokenId === null) {
+        assertSameOrigin(req);
+        assertContentType(req, options.accepts ?? ["application/json"]);
+      }
       const result = await handler(req, caller, ctx);
       return result instanceof Response ? result : Response.json(result);
     } catch (err) {

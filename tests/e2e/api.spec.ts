@@ -1,4 +1,4 @@
-import { expect, test, type APIResponse, type Page } from "@playwright/test";
+import { expect, test, type APIResponse, type Page } from "./support/test";
 import { db } from "@/db/knex";
 import { API_EXAMPLES, SENSITIVITY_EXAMPLE, SPECTRA_EXAMPLE, SWEEP_EXAMPLE, VIABLE_CELL, WINDOWS_EXAMPLE } from "@/lib/api/examples";
 import { LIMITS } from "@/lib/dielectric/limits";
@@ -143,9 +143,9 @@ test.describe("public JSON API", () => {
     expect(bySession.status()).toBe(403);
   });
 
-  test("a developer's signed-in session may call the API without a token", async ({ page }) => {
+  test("a developer's signed-in session may call the API without a token (from the app's own origin)", async ({ page, baseURL }) => {
     await signIn(page, DEMO.developer);
-    const res = await page.request.post("/api/v1/spectra", { data: SPECTRA_EXAMPLE.body });
+    const res = await page.request.post("/api/v1/spectra", { headers: { origin: baseURL! }, data: SPECTRA_EXAMPLE.body });
     expect(res.status()).toBe(200);
     expect((await res.json()).particles).toHaveLength(2);
   });

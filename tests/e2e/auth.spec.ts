@@ -1,4 +1,4 @@
-import { expect, test } from "@playwright/test";
+import { expect, test } from "./support/test";
 import { plainTextOf } from "@/lib/format/mime";
 import { readCapturedMail } from "@/lib/mail/sink";
 import { DEMO, signIn, snap } from "./support/auth";

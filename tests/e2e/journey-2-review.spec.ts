@@ -1,4 +1,4 @@
-import { expect, test, type Browser, type Page } from "@playwright/test";
+import { expect, test, type Browser, type Page } from "./support/test";
 import { subjectOf } from "@/lib/format/mime";
 import { readCapturedMail } from "@/lib/mail/sink";
 import { approvedProtocolWithDraft, closeJourneyDb } from "@/tests/support/protocol-journey";

@@ -1,5 +1,5 @@
 import { readFile } from "node:fs/promises";
-import { expect, test } from "@playwright/test";
+import { expect, test } from "./support/test";
 import { PDFParse } from "pdf-parse";
 import { db } from "@/db/knex";
 import { insertBenchVersion } from "@/tests/support/bench-fixture";

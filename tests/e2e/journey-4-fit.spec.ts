@@ -1,4 +1,4 @@
-import { expect, test } from "@playwright/test";
+import { expect, test } from "./support/test";
 import { exampleCrossoverCsv } from "@/lib/fitting";
 import { DEMO, signIn, snap } from "./support/auth";
 

@@ -12,4 +12,4 @@ export const POST = apiRoute("run.record", async (req, caller) => {
   const { run, files } = await readRunSubmission(req);
   const saved = await recordRun(caller.user, run, files);
   return Response.json({ run: saved }, { status: 201 });
-});
+}, { accepts: ["multipart/form-data"] });
