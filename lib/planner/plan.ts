@@ -12,6 +12,7 @@ import { particleFrom } from "./populations";
 import { buildSetup, resolveRequest, type ResolvedRequest } from "./prepare";
 import type { WindowsRequest } from "./schema";
 import { hz } from "./text";
+import { formatIn } from "@/lib/units/lab";
 import { MODEL_PREDICTION_WARNING, type PlannerWarning } from "./warnings";
 import { rankWindows, type OperatingWindow, type WindowContext } from "./windows";
 
@@ -83,7 +84,7 @@ export function assumptions(r: ResolvedRequest): string[] {
     `The voltage at each point is the one that brings the slowest ${(r.separation.slowCellQuantile * 100).toFixed(0)} % of the cells that must move up to the target speed, lowered if needed to the generator limit and to the heating, transmembrane-potential and electrothermal limits.`,
     `Field gradient: ${r.field.approximation}`,
     `Medium conductivity values are at the operating temperature. ${r.heating.description} Electrothermal speed is an order-of-magnitude scaling estimate; AC electro-osmosis by frequency/conductivity regime.`,
-    ...(r.holding ? [`Capture against a flow: the DEP speed of the captured cells at ${r.holding.height} m above the electrodes (${r.holding.heightSource}) must reach the local flow speed ${r.holding.localFlowSpeed.toPrecision(3)} m/s of the parabolic profile u(z) = 6ū(z/H)(1 − z/H) (DEP force above the Stokes drag; wall corrections neglected).`] : []),
+    ...(r.holding ? [`Capture against a flow: the DEP speed of the captured cells at ${formatIn("um", r.holding.height, 3)} above the electrodes (${r.holding.heightSource}) must reach the local flow speed ${formatIn("um_s", r.holding.localFlowSpeed, 3)} of the parabolic profile u(z) = 6ū(z/H)(1 − z/H) (DEP force above the Stokes drag; wall corrections neglected).`] : []),
     ...(r.frequencyRange ? [`Grid points outside the generator's frequency range are refused.`] : []),
     "Induced transmembrane potential (Schwan) on the target's mean cell at the field in the electrode gap (V/gap).",
     "These are model predictions: verify on the bench and follow your institution's biosafety and electrical-safety rules.",
