@@ -46,16 +46,18 @@ export function ErrorsSection({ example }: { example: unknown }) {
   );
 }
 
-/** The per-token rate limit. */
-export function RateLimitSection({ perMinute }: { perMinute: number }) {
+/** The per-token and per-user rate limits. */
+export function RateLimitSection({ perMinute, perSessionMinute, maxTokens }: { perMinute: number; perSessionMinute: number; maxTokens: number }) {
   return (
     <section className="card space-y-2 text-sm leading-relaxed" aria-labelledby="rate-title">
       <h2 id="rate-title">Rate limit</h2>
       <p>
         Each token may make <strong data-testid="rate-limit">{perMinute}</strong> requests per calendar minute (server
-        setting <code>RATE_LIMIT_PER_MINUTE</code>). Beyond that the answer is 429 with a <code>Retry-After</code> header
+        setting <code>RATE_LIMIT_PER_MINUTE</code>); calls made with the browser session may make{" "}
+        <strong data-testid="rate-limit-session">{perSessionMinute}</strong> per user and minute (server setting{" "}
+        <code>RATE_LIMIT_SESSION_PER_MINUTE</code>). Beyond that the answer is 429 with a <code>Retry-After</code> header
         giving the seconds until the next minute starts. The count is kept in the database, so it holds across several app
-        instances. Calls made with the browser session are not counted.
+        instances. One account may hold at most {maxTokens} live tokens at a time; revoke one to create another.
       </p>
     </section>
   );

@@ -10,6 +10,7 @@ import * as m600 from "./20261202_600_stored_files";
 import * as m300 from "./20261202_300_auth_attempts";
 import * as m310 from "./20261202_310_user_sessions";
 import * as m320 from "./20261202_320_password_links";
+import * as m400 from "./20261203_400_rate_windows";
 
 /**
  * Every migration, in order. Adding one: create `db/migrations/<date>_<nnn>_<name>.ts` exporting `up` and `down`,
@@ -27,6 +28,7 @@ const MIGRATIONS: [string, Knex.Migration][] = [
   ["20261202_300_auth_attempts", m300],
   ["20261202_310_user_sessions", m310],
   ["20261202_320_password_links", m320],
+  ["20261203_400_rate_windows", m400],
 ];
 
 /** Knex migration source backed by the list above. */

@@ -3,7 +3,8 @@ import { can, type Capability } from "@/lib/auth/roles";
 import { DomainError, ForbiddenError, InputError, UnauthenticatedError } from "@/lib/errors";
 import { asOutage } from "./outage";
 import { assertContentType, assertSameOrigin } from "@/lib/http/origin";
-import { enforceRateLimit, findLiveToken, touchTokenLater } from "@/lib/tokens/service";
+import { findLiveToken, touchTokenLater } from "@/lib/tokens/service";
+import { enforceRateLimit } from "./rate-limit";
 import { findUserById, type User } from "@/lib/users/repo";
 
 /** Who called: the user, and the token when the call came with one. */
@@ -13,7 +14,8 @@ export interface ApiCaller {
 }
 
 /**
- * Resolves the caller from `Authorization: Bearer …` or the session cookie; throws 401/403 errors.
+ * Resolves the caller from `Authorization: Bearer …` or the session cookie and spends one request of its per-minute
+ * budget (per token, or per user for cookie sessions; lib/http/rate-limit.ts); throws 401/403/429 errors.
  * @example const caller = await authenticate(req, "api.compute");
  */
 export async function authenticate(req: Request, capability: Capability): Promise<ApiCaller> {
@@ -26,12 +28,13 @@ export async function authenticate(req: Request, capability: Capability): Promis
     if (!token) throw new UnauthenticatedError("The API token is unknown or has been revoked.");
     const user = await findUserById(token.userId);
     if (!user || !user.active) throw new UnauthenticatedError("The account that owns this token is deactivated.");
-    await enforceRateLimit(token.id);
+    await enforceRateLimit({ kind: "token", tokenId: token.id });
     touchTokenLater(token.id);
     caller = { user, tokenId: token.id };
   } else {
     const user = await currentUser();
     if (!user) throw new UnauthenticatedError();
+    await enforceRateLimit({ kind: "user", userId: user.id });
     caller = { user, tokenId: null };
   }
   if (!can(caller.user.role, capability)) {

@@ -72,17 +72,10 @@ export async function touchToken(id: number): Promise<void> {
 }
 
 /**
- * Counts one request in the token's current minute and returns the count including this one. The upsert and the
- * read run in one transaction, so the row stays locked between them and concurrent requests each see their own
- * count (exact across app instances).
+ * How many live (not revoked) tokens a user holds.
+ * @example await countLiveTokens(trx, 5); // 3
  */
-export async function countHit(tokenId: number, windowStart: number): Promise<number> {
-  return db.transaction(async (trx) => {
-    await trx.raw(
-      "INSERT INTO api_rate_windows (token_id, window_start, hits) VALUES (?, ?, 1) ON DUPLICATE KEY UPDATE hits = hits + 1",
-      [tokenId, windowStart],
-    );
-    const row = await trx("api_rate_windows").where({ token_id: tokenId, window_start: windowStart }).first("hits");
-    return Number(row?.hits ?? 0);
-  });
+export async function countLiveTokens(conn: Knex, userId: number): Promise<number> {
+  const row = await conn("api_tokens").where({ user_id: userId }).whereNull("revoked_at").count({ n: "*" }).first();
+  return Number(row?.n ?? 0);
 }

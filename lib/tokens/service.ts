@@ -2,12 +2,15 @@ import { createHash, randomBytes } from "node:crypto";
 import { z } from "zod";
 import { db } from "@/db/knex";
 import { recordAudit } from "@/lib/audit/repo";
-import { NotFoundError, RateLimitedError } from "@/lib/errors";
+import { ConflictError, NotFoundError } from "@/lib/errors";
 import { parseOrThrow } from "@/lib/http/zod-issues";
-import type { User } from "@/lib/users/repo";
+import { lockUserRow, type User } from "@/lib/users/repo";
 import * as repo from "./repo";
 
 const TOKEN_PREFIX = "sw_";
+
+/** The most live (not revoked) API tokens one user may hold; creating one more is refused. */
+export const MAX_LIVE_TOKENS_PER_USER = 10;
 
 /** The settings form for a new token. */
 export const createTokenSchema = z.object({
@@ -22,13 +25,22 @@ export function hashToken(secret: string): string {
 }
 
 /**
- * Creates a personal API token; the plain secret is returned once and only its hash is stored.
+ * Creates a personal API token; the plain secret is returned once and only its hash is stored. A user holding
+ * MAX_LIVE_TOKENS_PER_USER live tokens is refused (409) until one is revoked; the user's row is locked while counting,
+ * so two simultaneous requests cannot both pass the cap.
  * @example const { secret } = await createToken(user, { label: "notebook" });
  */
 export async function createToken(user: User, raw: unknown): Promise<{ id: number; secret: string }> {
   const { label } = parseOrThrow(createTokenSchema, raw);
   const secret = TOKEN_PREFIX + randomBytes(24).toString("base64url");
   return db.transaction(async (trx) => {
+    await lockUserRow(trx, user.id);
+    const live = await repo.countLiveTokens(trx, user.id);
+    if (live >= MAX_LIVE_TOKENS_PER_USER) {
+      throw new ConflictError(
+        `You already have ${live} live API tokens, the most allowed is ${MAX_LIVE_TOKENS_PER_USER}. Revoke one you no longer use, then create the new one.`,
+      );
+    }
     const id = await repo.insertToken(trx, { userId: user.id, label, hash: hashToken(secret), prefix: secret.slice(0, 10) });
     await recordAudit(trx, {
       actor: user,
@@ -61,20 +73,6 @@ export async function revokeToken(user: User, tokenId: number): Promise<void> {
 export async function findLiveToken(secret: string): Promise<repo.ApiToken | null> {
   const token = await repo.findTokenByHash(hashToken(secret));
   return token && !token.revokedAt ? token : null;
-}
-
-/**
- * Counts a request against the token's per-minute budget (RATE_LIMIT_PER_MINUTE, default 120) or throws 429.
- * @example await enforceRateLimit(token.id);
- */
-export async function enforceRateLimit(tokenId: number, now = Date.now()): Promise<void> {
-  const limit = Number(process.env.RATE_LIMIT_PER_MINUTE ?? 120);
-  const windowStart = Math.floor(now / 60_000) * 60_000;
-  const hits = await repo.countHit(tokenId, windowStart);
-  if (hits > limit) {
-    const retry = Math.ceil((windowStart + 60_000 - now) / 1000);
-    throw new RateLimitedError(`Rate limit: at most ${limit} requests per minute per token; retry in ${retry} s.`, retry);
-  }
 }
 
 /** Records a token's last use without delaying the response; a failure there is logged, not raised. */

@@ -90,3 +90,12 @@ export async function listUsers(): Promise<User[]> {
 export async function listActiveUsersByRole(role: Role, conn: Knex = db): Promise<User[]> {
   return (await conn<UserRow>("users").where({ role, active: true }).orderBy("id")).map(toUser);
 }
+
+/**
+ * Locks the user's row until `trx` ends, so per-user checks (e.g. the live-token cap) and the write that follows them
+ * are not raced by a second request of the same user.
+ * @example await lockUserRow(trx, 5);
+ */
+export async function lockUserRow(trx: Knex.Transaction, id: number): Promise<void> {
+  await trx("users").where({ id }).forUpdate().first("id");
+}

@@ -6,13 +6,14 @@ import { sampleValidationError } from "@/lib/api/compute";
 import { ROUTE_DOCS } from "@/lib/api/routes";
 import { requirePageUser } from "@/lib/auth/session";
 import { ENGINE_VERSION } from "@/lib/dielectric";
+import { rateLimitFor } from "@/lib/http/rate-limit";
+import { MAX_LIVE_TOKENS_PER_USER } from "@/lib/tokens/service";
 
 export const metadata: Metadata = { title: "API" };
 
 export default async function ApiDocsPage() {
-  await requirePageUser("api.compute");
+  const user = await requirePageUser("api.compute");
   const baseUrl = (process.env.APP_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");
-  const perMinute = Number(process.env.RATE_LIMIT_PER_MINUTE ?? 120);
   return (
     <div className="max-w-4xl space-y-6">
       <header className="space-y-2">
@@ -29,7 +30,11 @@ export default async function ApiDocsPage() {
       <AuthSection baseUrl={baseUrl} />
       {ROUTE_DOCS.map((r) => <RouteSection key={r.path} route={r} baseUrl={baseUrl} />)}
       <ErrorsSection example={await sampleValidationError().json()} />
-      <RateLimitSection perMinute={perMinute} />
+      <RateLimitSection
+        perMinute={rateLimitFor({ kind: "token", tokenId: 0 })}
+        perSessionMinute={rateLimitFor({ kind: "user", userId: user.id })}
+        maxTokens={MAX_LIVE_TOKENS_PER_USER}
+      />
     </div>
   );
 }
