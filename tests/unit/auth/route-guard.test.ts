@@ -1,12 +1,12 @@
 import { NextRequest } from "next/server";
 import { describe, expect, it, vi } from "vitest";
-import { guardAuthRoute } from "@/lib/auth/route-guard";
+import { appOrigin, guardAuthRoute } from "@/lib/auth/route-guard";
 
 const BASE = "http://127.0.0.1:3000";
 
-function guarded() {
+function guarded(env: Record<string, string | undefined> = { NEXTAUTH_URL: BASE }) {
   const inner = vi.fn(async () => new Response("next-auth"));
-  return { inner, handler: guardAuthRoute(inner) };
+  return { inner, handler: guardAuthRoute(inner, env) };
 }
 
 describe("guardAuthRoute (no 500 from next-auth for a malformed callback URL)", () => {
@@ -39,5 +39,34 @@ describe("guardAuthRoute (no 500 from next-auth for a malformed callback URL)", 
     expect(res.status).toBe(303);
     expect(res.headers.get("set-cookie")).toMatch(/next-auth\.callback-url=;/);
     expect(inner).not.toHaveBeenCalled();
+  });
+
+  // Behind `next start -H 127.0.0.1` or a proxy, Next may see the request as http://localhost:…; the browser must be
+  // sent back to the address it uses, the app's base URL.
+  it("builds the redirect on NEXTAUTH_URL's host, not on the host Next saw", async () => {
+    const { handler } = guarded({ NEXTAUTH_URL: "https://sw.lab.example/", APP_BASE_URL: "https://other.example" });
+    const res = await handler(new NextRequest(`http://localhost:3000/api/auth/signin?callbackUrl=${encodeURIComponent("http://[::1")}&x=1`), {});
+    expect(res.status).toBe(303);
+    const location = new URL(res.headers.get("location")!);
+    expect(location.origin).toBe("https://sw.lab.example");
+    expect(location.pathname).toBe("/api/auth/signin");
+    expect(location.searchParams.get("callbackUrl")).toBe("/home");
+    expect(location.searchParams.get("x")).toBe("1");
+  });
+
+  it("falls back to APP_BASE_URL, then to the Host the browser sent", async () => {
+    const bad = `callbackUrl=${encodeURIComponent("javascript:alert(1)")}`;
+    const viaBase = await guarded({ APP_BASE_URL: "http://127.0.0.1:3140" }).handler(new NextRequest(`http://localhost:3140/api/auth/signin?${bad}`), {});
+    expect(new URL(viaBase.headers.get("location")!).origin).toBe("http://127.0.0.1:3140");
+    const bare = await guarded({}).handler(
+      new NextRequest(`http://127.0.0.1:3000/api/auth/signin?${bad}`, { headers: { host: "127.0.0.1:3000" } }),
+      {},
+    );
+    expect(new URL(bare.headers.get("location")!).origin).toBe("http://127.0.0.1:3000");
+  });
+
+  it("skips an unparsable setting when choosing the origin", () => {
+    expect(appOrigin({ NEXTAUTH_URL: "not a url", APP_BASE_URL: "https://sw.lab.example/x" }, "http://localhost:3000")).toBe("https://sw.lab.example");
+    expect(appOrigin({ NEXTAUTH_URL: "", APP_BASE_URL: undefined }, "http://localhost:3000")).toBe("http://localhost:3000");
   });
 });
