@@ -3,7 +3,7 @@
 import { VictoryArea, VictoryAxis, VictoryChart, VictoryContainer, VictoryLabel, VictoryLine, VictoryScatter } from "victory";
 import { decadeTicks, formatFrequency } from "@/lib/charts/format";
 import { layoutLabels, textWidth } from "@/lib/charts/label-layout";
-import type { SpectrumSeries } from "@/lib/planner-wizard/spectra-request";
+import type { SpectrumSeries } from "@/lib/wizard/spectra-request";
 import { DepPatterns, DepSwatch } from "./dep-patterns";
 
 /** One population on the chart. */

@@ -1,6 +1,6 @@
 import { sig } from "@/lib/charts/format";
 import { textWidth } from "@/lib/charts/label-layout";
-import type { TornadoBar } from "@/lib/planner-wizard/results-data";
+import type { TornadoBar } from "@/lib/wizard/results-data";
 
 /**
  * Sensitivity (tornado) chart: for each parameter, how far a −1 SD (hatched bar, "−1 SD" label) and a +1 SD (solid

@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { formatConductivity, sig } from "@/lib/charts/format";
-import { ADDITION_KINDS, additionUnitLabel, BUFFER_STEP_FIELDS, bufferChoice, bufferStepSchema, libraryBufferToStep, predictRecipe, type BufferStepValues, type LibraryBufferContent } from "@/lib/planner-wizard/buffer-form";
+import { ADDITION_KINDS, additionUnitLabel, BUFFER_STEP_FIELDS, bufferChoice, bufferStepSchema, libraryBufferToStep, predictRecipe, type BufferStepValues, type LibraryBufferContent } from "@/lib/wizard/buffer-form";
 import { labelWithUnit, rangeInWords } from "@/lib/units/lab-fields";
 import { errorAt, NumField } from "@/components/forms/num-field";
 import { StepFooter } from "./step-footer";

@@ -7,7 +7,7 @@ import { useForm, useWatch } from "react-hook-form";
 import { interdigitatedField } from "@/lib/dielectric";
 import { sci, sig } from "@/lib/charts/format";
 import { DEVICE_FIELDS } from "@/lib/devices/fields";
-import { deviceStepSchema, libraryDeviceToStep, meanFlowSpeed, STEP_FIELD_OF, type DeviceStepValues, type LibraryDeviceContent } from "@/lib/planner-wizard/device-form";
+import { deviceStepSchema, libraryDeviceToStep, meanFlowSpeed, STEP_FIELD_OF, type DeviceStepValues, type LibraryDeviceContent } from "@/lib/wizard/device-form";
 import { labelWithUnit, rangeInWords } from "@/lib/units/lab-fields";
 import { errorAt, NumField } from "@/components/forms/num-field";
 import { StepFooter } from "./step-footer";

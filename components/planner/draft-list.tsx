@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { ConfirmSubmit } from "@/components/forms/confirm-submit";
-import { discardDraftAction } from "@/lib/planner-wizard/actions";
-import { STEPS, type StepSlug } from "@/lib/planner-wizard/steps";
+import { discardDraftAction } from "@/lib/wizard/drafts/actions";
+import { STEPS, type StepSlug } from "@/lib/wizard/steps";
 
 /** One row of the landing page's draft list. */
 export interface DraftSummary {

@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { defaultConstraints } from "@/lib/planner/constraints";
-import { ACEO_LEVELS, defaultLimits, defaultText, LIMIT_FIELDS, limitsStepSchema, SORT_DESIGNS, type LimitsStepValues, type SortDesignKey } from "@/lib/planner-wizard/limits-form";
+import { ACEO_LEVELS, defaultLimits, defaultText, LIMIT_FIELDS, limitsStepSchema, SORT_DESIGNS, type LimitsStepValues, type SortDesignKey } from "@/lib/wizard/limits-form";
 import { errorAt } from "@/components/forms/num-field";
 import { StepFooter } from "./step-footer";
 import { useAutosave } from "./use-autosave";

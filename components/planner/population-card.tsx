@@ -4,9 +4,9 @@ import type { FieldErrors, UseFormRegister, UseFormSetValue } from "react-hook-f
 import { errorAt } from "@/components/forms/num-field";
 import { PopulationEditor } from "@/components/populations/population-editor";
 import type { PopulationSpec } from "@/lib/populations/spec";
-import type { PopulationFormValues, PopulationsStepValues } from "@/lib/planner-wizard/population-form";
-import { specToForm } from "@/lib/planner-wizard/population-form";
-import type { StartingPoint } from "@/lib/planner-wizard/starting-points";
+import type { PopulationFormValues, PopulationsStepValues } from "@/lib/wizard/population-form";
+import { specToForm } from "@/lib/wizard/population-form";
+import type { StartingPoint } from "@/lib/wizard/starting-points";
 
 /** A population the library offers (current version, SI spec). */
 export interface LibraryPopulation {

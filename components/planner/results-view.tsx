@@ -5,16 +5,16 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useMemo, useRef, useState } from "react";
 import type { SpectraResult } from "@/lib/dielectric";
-import type { SensitivityResult, WindowsRequest, WindowsResult } from "@/lib/planner";
-import type { PopulationSpec } from "@/lib/populations/spec";
+import type { SensitivityResult, WindowsResult } from "@/lib/planner";
+import type { ResultsSetup } from "@/lib/wizard/results-setup";
 import { formatConductivity, formatFrequency, sci, sig } from "@/lib/charts/format";
-import { postJson } from "@/lib/planner-wizard/api-client";
-import { blockerNames, parameterLabel, signedSeparation, tornadoBars } from "@/lib/planner-wizard/results-data";
+import { postJson } from "@/components/planner/api-client";
+import { blockerNames, parameterLabel, signedSeparation, tornadoBars } from "@/lib/wizard/results-data";
 import { heatmapSvg } from "@/lib/charts/heatmap-svg";
 import { spectraCsv, sweepMapCsv, windowsCsv } from "@/lib/exports/planner-csv";
 import { ChartDownloads, TextDownload } from "@/components/charts/chart-downloads";
 import { BlockerSummary } from "./blocker-summary";
-import { spectraBody, toSeries } from "@/lib/planner-wizard/spectra-request";
+import { spectraBody, toSeries } from "@/lib/wizard/spectra-request";
 import { SpectraChart, type SpectrumLine } from "@/components/charts/spectra-chart";
 import { SweepHeatmap, type HeatmapData } from "@/components/charts/sweep-heatmap";
 import { TornadoChart } from "@/components/charts/tornado-chart";
@@ -25,18 +25,9 @@ import { useSlow } from "./use-debounced";
 import { WarningList } from "./warning-list";
 import { WindowTable } from "./window-table";
 
-/** What the results step gets from the server: the planner requests built from steps 1–4, names and specs. */
-export interface ResultsProps {
+/** The results step's props: the draft id and what `resultsSetup` built from steps 1–4. */
+export interface ResultsProps extends ResultsSetup {
   draftId: number;
-  request: WindowsRequest;
-  mapRequest: WindowsRequest | null;
-  names: { target: string; other: string };
-  specs: { target: PopulationSpec; other: PopulationSpec };
-  initialRank: number | null;
-  /** The window saved with the draft (conductivity S/m, band Hz), kept selected only if a recomputed result still has it. */
-  initialWindow: { conductivity: number; bandStart: number; bandStop: number } | null;
-  bufferConductivity: number | null;
-  permittivity: number;
 }
 
 /** Step 5: spectra, sweep map, ranked windows, warnings, sensitivity and the model's assumptions and cautions. */

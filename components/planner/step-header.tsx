@@ -1,4 +1,4 @@
-import { STEPS, type StepSlug } from "@/lib/planner-wizard/steps";
+import { STEPS, type StepSlug } from "@/lib/wizard/steps";
 import { StepNav } from "./step-nav";
 
 /** Title of the plan, the step list and the step's heading. */

@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { STEPS, type StepSlug } from "@/lib/planner-wizard/steps";
+import { STEPS, type StepSlug } from "@/lib/wizard/steps";
 
 /** The wizard's step list: where you are, which steps are done; every step is a link (URL per step). */
 export function StepNav({ draftId, current, done }: { draftId: number; current: StepSlug; done: StepSlug[] }) {

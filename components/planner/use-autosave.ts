@@ -1,8 +1,8 @@
 "use client";
 
 import { useEffect, useRef, useState } from "react";
-import { saveStepAction } from "@/lib/planner-wizard/actions";
-import type { StepSlug } from "@/lib/planner-wizard/steps";
+import { saveStepAction } from "@/lib/wizard/drafts/actions";
+import type { StepSlug } from "@/lib/wizard/steps";
 
 /** Autosave state shown next to the step's buttons ("pending": changed since the last save, saving shortly). */
 export type SaveState =

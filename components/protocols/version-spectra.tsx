@@ -2,7 +2,7 @@ import { SpectraChart, type SpectrumLine } from "@/components/charts/spectra-cha
 import { evaluateSpectra, waterPermittivity } from "@/lib/dielectric";
 import { formatConductivity, formatFrequency } from "@/lib/format/units";
 import type { ProtocolContent } from "@/lib/protocols/content";
-import { spectraBody, toSeries } from "@/lib/planner-wizard/spectra-request";
+import { spectraBody, toSeries } from "@/lib/wizard/spectra-request";
 
 /**
  * Re[K] spectra of both populations in the version's medium (recomputed from the frozen content with the fixed seed),

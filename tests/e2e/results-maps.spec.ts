@@ -2,12 +2,12 @@ import { readFile } from "node:fs/promises";
 import { expect, test, type Page } from "@playwright/test";
 import { db } from "@/db/knex";
 import type { PopulationSpec } from "@/lib/populations/spec";
-import { defaultBuffer } from "@/lib/planner-wizard/buffer-form";
-import { defaultDevice } from "@/lib/planner-wizard/device-form";
-import { pickablePopulations } from "@/lib/planner-wizard/library-picks";
-import { defaultLimits } from "@/lib/planner-wizard/limits-form";
-import { specToForm } from "@/lib/planner-wizard/population-form";
-import { startDraft } from "@/lib/planner-wizard/service";
+import { defaultBuffer } from "@/lib/wizard/buffer-form";
+import { defaultDevice } from "@/lib/wizard/device-form";
+import { pickablePopulations } from "@/lib/wizard/library-picks";
+import { defaultLimits } from "@/lib/wizard/limits-form";
+import { specToForm } from "@/lib/wizard/population-form";
+import { startDraft } from "@/lib/wizard/drafts/service";
 import { DEMO, signIn, snap } from "./support/auth";
 import { releaseDb } from "./support/db";
 

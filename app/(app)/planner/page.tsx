@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
 import { DraftList } from "@/components/planner/draft-list";
 import { requirePageUser } from "@/lib/auth/session";
-import { startDraftAction } from "@/lib/planner-wizard/actions";
-import { listOwnDrafts } from "@/lib/planner-wizard/service";
-import { completedSteps } from "@/lib/planner-wizard/progress";
+import { startDraftAction } from "@/lib/wizard/drafts/actions";
+import { listOwnDrafts } from "@/lib/wizard/drafts/service";
+import { completedSteps } from "@/lib/wizard/progress";
 import { formProblemText } from "@/lib/http/form-outcome";
 
 export const metadata: Metadata = { title: "Planner" };

@@ -2,7 +2,7 @@
 import { describe, expect, it } from "vitest";
 import { evaluateBuffer } from "@/lib/dielectric";
 import { flowText, heatingText } from "@/lib/bench-sheet/flow";
-import { rangeRecipe } from "@/lib/planner-wizard/range-recipe";
+import { rangeRecipe } from "@/lib/wizard/range-recipe";
 
 describe("bench-sheet flow and heating text", () => {
   it("never says 'static' for a plan without a flow rate: every design moves cells with a flow", () => {

@@ -4,7 +4,7 @@ import { bufferFormSchema } from "@/lib/library/buffers/content";
 import { BLANK, formDefaults } from "@/lib/library/form-defaults";
 import { kindInfo } from "@/lib/library/kinds";
 import { windowsRequestSchema } from "@/lib/planner";
-import { bufferStepSchema, defaultBuffer } from "@/lib/planner-wizard/buffer-form";
+import { bufferStepSchema, defaultBuffer } from "@/lib/wizard/buffer-form";
 import { defaultPopulationSpec } from "@/lib/populations/spec";
 import { protocolContentSchema } from "@/lib/protocols/content";
 import { fromSI } from "@/lib/units/lab";

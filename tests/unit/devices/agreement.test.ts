@@ -5,7 +5,7 @@ import { frequencyRangeIssue } from "@/lib/devices/schema";
 import { kindInfo } from "@/lib/library/kinds";
 import { BLANK } from "@/lib/library/form-defaults";
 import { windowsRequestSchema, type WindowsRequest } from "@/lib/planner";
-import { defaultDevice, deviceStepSchema, STEP_FIELD_OF, type DeviceStepValues } from "@/lib/planner-wizard/device-form";
+import { defaultDevice, deviceStepSchema, STEP_FIELD_OF, type DeviceStepValues } from "@/lib/wizard/device-form";
 import { defaultPopulationSpec } from "@/lib/populations/spec";
 import { protocolContentSchema } from "@/lib/protocols/content";
 import { fromSI } from "@/lib/units/lab";

@@ -1,7 +1,7 @@
 import { notFound } from "next/navigation";
 import { requirePageUser } from "@/lib/auth/session";
 import { NotFoundError } from "@/lib/errors";
-import { getOwnDraft } from "@/lib/planner-wizard/service";
+import { getOwnDraft } from "@/lib/wizard/drafts/service";
 
 /** Frame of one planner draft: checks the draft is the user's before any step renders. */
 export default async function DraftLayout({ children, params }: { children: React.ReactNode; params: Promise<{ draftId: string }> }) {

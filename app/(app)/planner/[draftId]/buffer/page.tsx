@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
 import { BufferStep } from "@/components/planner/buffer-step";
 import { StepHeader } from "@/components/planner/step-header";
-import { defaultBuffer, type BufferStepValues } from "@/lib/planner-wizard/buffer-form";
-import { pickableBuffers } from "@/lib/planner-wizard/library-picks";
-import { loadStep } from "@/lib/planner-wizard/page-data";
+import { defaultBuffer, type BufferStepValues } from "@/lib/wizard/buffer-form";
+import { pickableBuffers } from "@/lib/wizard/library-picks";
+import { loadStep } from "@/lib/wizard/drafts/page-data";
 
 export const metadata: Metadata = { title: "Planner · Buffer" };
 

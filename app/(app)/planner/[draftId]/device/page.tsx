@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
 import { DeviceStep } from "@/components/planner/device-step";
 import { StepHeader } from "@/components/planner/step-header";
-import { defaultDevice, type DeviceStepValues } from "@/lib/planner-wizard/device-form";
-import { pickableDevices } from "@/lib/planner-wizard/library-picks";
-import { loadStep } from "@/lib/planner-wizard/page-data";
+import { defaultDevice, type DeviceStepValues } from "@/lib/wizard/device-form";
+import { pickableDevices } from "@/lib/wizard/library-picks";
+import { loadStep } from "@/lib/wizard/drafts/page-data";
 
 export const metadata: Metadata = { title: "Planner · Device and drive" };
 

@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
 import { LimitsStep } from "@/components/planner/limits-step";
 import { StepHeader } from "@/components/planner/step-header";
-import { defaultLimits, type LimitsStepValues } from "@/lib/planner-wizard/limits-form";
-import { loadStep } from "@/lib/planner-wizard/page-data";
+import { defaultLimits, type LimitsStepValues } from "@/lib/wizard/limits-form";
+import { loadStep } from "@/lib/wizard/drafts/page-data";
 
 export const metadata: Metadata = { title: "Planner · Limits" };
 

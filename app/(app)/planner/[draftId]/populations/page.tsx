@@ -1,11 +1,11 @@
 import type { Metadata } from "next";
 import { PopulationsStep } from "@/components/planner/populations-step";
 import { StepHeader } from "@/components/planner/step-header";
-import { pickablePopulations } from "@/lib/planner-wizard/library-picks";
-import { loadStep } from "@/lib/planner-wizard/page-data";
-import type { PopulationsStepValues } from "@/lib/planner-wizard/population-form";
-import { previewMedium } from "@/lib/planner-wizard/preview-medium";
-import { STARTING_POINTS } from "@/lib/planner-wizard/starting-points";
+import { pickablePopulations } from "@/lib/wizard/library-picks";
+import { loadStep } from "@/lib/wizard/drafts/page-data";
+import type { PopulationsStepValues } from "@/lib/wizard/population-form";
+import { previewMedium } from "@/lib/wizard/preview-medium";
+import { STARTING_POINTS } from "@/lib/wizard/starting-points";
 
 export const metadata: Metadata = { title: "Planner · Populations" };
 

@@ -2,8 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { ResultsView } from "@/components/planner/results-view";
 import { StepHeader } from "@/components/planner/step-header";
-import { loadStep } from "@/lib/planner-wizard/page-data";
-import { resultsSetup } from "@/lib/planner-wizard/results-setup";
+import { loadStep } from "@/lib/wizard/drafts/page-data";
+import { resultsSetup } from "@/lib/wizard/results-setup";
 
 export const metadata: Metadata = { title: "Planner · Results" };
 

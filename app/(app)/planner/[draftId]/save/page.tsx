@@ -2,8 +2,8 @@ import type { Metadata } from "next";
 import { SaveStep } from "@/components/planner/save-step";
 import { StepHeader } from "@/components/planner/step-header";
 import { formatConductivity, formatFrequency } from "@/lib/charts/format";
-import { loadStep } from "@/lib/planner-wizard/page-data";
-import { defaultSave, type SaveStepValues } from "@/lib/planner-wizard/save-form";
+import { loadStep } from "@/lib/wizard/drafts/page-data";
+import { defaultSave, type SaveStepValues } from "@/lib/wizard/save-form";
 import { listProtocols } from "@/lib/protocols/queries";
 
 export const metadata: Metadata = { title: "Planner · Save" };

@@ -1,5 +1,5 @@
-import type { StepSlug } from "./steps";
-import { isStepSlug } from "./steps";
+import type { StepSlug } from "../steps";
+import { isStepSlug } from "../steps";
 
 /** Every step's inputs as the user typed them (lab units), keyed by step; a step not yet visited is absent. */
 export type WizardInputs = Partial<Record<StepSlug, unknown>>;

@@ -3,9 +3,9 @@ import { requirePageUser } from "@/lib/auth/session";
 import { NotFoundError } from "@/lib/errors";
 import type { User } from "@/lib/users/repo";
 import type { WizardDraft } from "./mapper";
-import { completedSteps } from "./progress";
+import { completedSteps } from "../progress";
 import { getOwnDraft } from "./service";
-import type { StepSlug } from "./steps";
+import type { StepSlug } from "../steps";
 
 /**
  * For step pages: the signed-in developer, their draft (404 if not theirs) and the steps already done.

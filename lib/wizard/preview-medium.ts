@@ -1,6 +1,6 @@
 import { waterPermittivity } from "@/lib/dielectric";
 import { bufferChoice, bufferStepSchema, type BufferStepValues } from "./buffer-form";
-import type { WizardInputs } from "./mapper";
+import type { WizardInputs } from "./drafts/mapper";
 import { atOperating } from "./request";
 
 /**

@@ -3,9 +3,9 @@ import { parseOrThrow } from "@/lib/http/zod-issues";
 import { planWindows } from "@/lib/planner";
 import { createProtocol, newVersion, updateDraft } from "@/lib/protocols/service";
 import type { Role } from "@/lib/auth/roles";
-import { buildContent } from "./content";
-import { readyInputs, toWindowsRequest } from "./request";
-import { saveStepSchema } from "./save-form";
+import { buildContent } from "../to-protocol";
+import { readyInputs, toWindowsRequest } from "../request";
+import { saveStepSchema } from "../save-form";
 import { getOwnDraft, markSaved, saveStepInputs } from "./service";
 
 /** The chosen window as the results step stored it. */

@@ -6,9 +6,9 @@ import { requireActionUser } from "@/lib/auth/session";
 import { runAction, type ActionResult } from "@/lib/http/action-result";
 import { InputError } from "@/lib/errors";
 import { formProblem } from "@/lib/http/form-outcome";
-import { saveAsProtocol } from "./save-service";
+import { saveAsProtocol } from "./save-as-protocol";
 import { discardDraft, saveStepInputs, startDraft } from "./service";
-import { isStepSlug } from "./steps";
+import { isStepSlug } from "../steps";
 
 /** Starts a new planner draft and opens its first step; a refusal comes back to the planner page as ?problem=. */
 export async function startDraftAction(): Promise<void> {

@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import { db } from "@/db/knex";
 import { toDraft, type WizardDraft, type WizardDraftRow, type WizardInputs } from "./mapper";
-import type { StepSlug } from "./steps";
+import type { StepSlug } from "../steps";
 
 const TABLE = "wizard_drafts";
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { sci } from "@/lib/charts/format";
-import { blockerNames, signedSeparation, toProtocolWarning } from "@/lib/planner-wizard/results-data";
+import { blockerNames, signedSeparation, toProtocolWarning } from "@/lib/wizard/results-data";
 
 describe("results helpers", () => {
   it("signs the separation by the target's direction and keeps it within ±1", () => {

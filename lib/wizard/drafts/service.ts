@@ -2,7 +2,7 @@ import { db } from "@/db/knex";
 import { InputError, NotFoundError, TooLargeError } from "@/lib/errors";
 import type { WizardDraft, WizardInputs } from "./mapper";
 import { deleteDraftRow, findDraft, findDraftForUpdate, insertDraft, listDraftsByOwner, updateDraft } from "./repo";
-import { isStepSlug, type StepSlug } from "./steps";
+import { isStepSlug, type StepSlug } from "../steps";
 
 /** Largest inputs document a draft may hold (bytes of JSON). */
 export const MAX_DRAFT_BYTES = 512 * 1024;

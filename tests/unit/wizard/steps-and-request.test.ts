@@ -1,11 +1,11 @@
 import { describe, expect, it } from "vitest";
 import { windowsRequestSchema } from "@/lib/planner";
-import { bufferChoice, bufferStepSchema, defaultBuffer, toEngineRecipe } from "@/lib/planner-wizard/buffer-form";
-import { defaultDevice, deviceStepSchema, libraryDeviceToStep, meanFlowSpeed } from "@/lib/planner-wizard/device-form";
-import { defaultLimits, limitsStepSchema } from "@/lib/planner-wizard/limits-form";
-import { atOperating, readyInputs, toWindowsRequest } from "@/lib/planner-wizard/request";
-import { STARTING_POINTS } from "@/lib/planner-wizard/starting-points";
-import { completedSteps } from "@/lib/planner-wizard/progress";
+import { bufferChoice, bufferStepSchema, defaultBuffer, toEngineRecipe } from "@/lib/wizard/buffer-form";
+import { defaultDevice, deviceStepSchema, libraryDeviceToStep, meanFlowSpeed } from "@/lib/wizard/device-form";
+import { defaultLimits, limitsStepSchema } from "@/lib/wizard/limits-form";
+import { atOperating, readyInputs, toWindowsRequest } from "@/lib/wizard/request";
+import { STARTING_POINTS } from "@/lib/wizard/starting-points";
+import { completedSteps } from "@/lib/wizard/progress";
 
 const live = STARTING_POINTS.find((s) => s.key === "mammalianViable")!.values;
 const dead = STARTING_POINTS.find((s) => s.key === "mammalianCompromised")!.values;

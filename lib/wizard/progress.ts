@@ -1,7 +1,7 @@
 import { bufferStepSchema } from "./buffer-form";
 import { deviceStepSchema } from "./device-form";
 import { limitsStepSchema } from "./limits-form";
-import type { WizardInputs } from "./mapper";
+import type { WizardInputs } from "./drafts/mapper";
 import { populationsStepSchema } from "./population-form";
 import type { StepSlug } from "./steps";
 

@@ -1,7 +1,22 @@
 import type { WindowsRequest } from "@/lib/planner";
-import type { WizardInputs } from "./mapper";
+import type { PopulationSpec } from "@/lib/populations/spec";
+import type { WizardInputs } from "./drafts/mapper";
 import { mapConductivities, readyInputs, toWindowsRequest } from "./request";
-import type { ResultsProps } from "@/components/planner/results-view";
+
+/** What the results step gets from the server: the planner requests built from steps 1–4, names and specs. */
+export interface ResultsSetup {
+  request: WindowsRequest;
+  mapRequest: WindowsRequest | null;
+  names: { target: string; other: string };
+  specs: { target: PopulationSpec; other: PopulationSpec };
+  initialRank: number | null;
+  /** The window saved with the draft (conductivity S/m, band Hz), kept selected only if a recomputed result still has it. */
+  initialWindow: { conductivity: number; bandStart: number; bandStop: number } | null;
+  /** The fixed buffer conductivity, S/m, or null when the planner chooses it. */
+  bufferConductivity: number | null;
+  /** Relative permittivity of the medium (dimensionless), e.g. 78.3. */
+  permittivity: number;
+}
 
 /**
  * What the results step needs from a draft: the planner request, the wider map request when the buffer is fixed,
@@ -9,7 +24,7 @@ import type { ResultsProps } from "@/components/planner/results-view";
  * @example const s = resultsSetup(draft.inputs); if (s.ok) s.props.request.medium
  */
 export function resultsSetup(inputs: WizardInputs):
-  | { ok: true; props: Omit<ResultsProps, "draftId">; request: WindowsRequest }
+  | { ok: true; props: ResultsSetup; request: WindowsRequest }
   | { ok: false; step: string; message: string } {
   const ready = readyInputs(inputs);
   if (!ready.ok) return ready;

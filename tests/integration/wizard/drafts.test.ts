@@ -1,15 +1,15 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { NotFoundError, TooLargeError } from "@/lib/errors";
-import { defaultBuffer } from "@/lib/planner-wizard/buffer-form";
-import { defaultDevice } from "@/lib/planner-wizard/device-form";
-import { defaultLimits } from "@/lib/planner-wizard/limits-form";
-import { completedSteps } from "@/lib/planner-wizard/progress";
-import { saveAsProtocol } from "@/lib/planner-wizard/save-service";
-import { discardDraft, getOwnDraft, listOwnDrafts, MAX_DRAFT_BYTES, saveStepInputs, startDraft } from "@/lib/planner-wizard/service";
-import { STARTING_POINTS } from "@/lib/planner-wizard/starting-points";
+import { defaultBuffer } from "@/lib/wizard/buffer-form";
+import { defaultDevice } from "@/lib/wizard/device-form";
+import { defaultLimits } from "@/lib/wizard/limits-form";
+import { completedSteps } from "@/lib/wizard/progress";
+import { saveAsProtocol } from "@/lib/wizard/drafts/save-as-protocol";
+import { discardDraft, getOwnDraft, listOwnDrafts, MAX_DRAFT_BYTES, saveStepInputs, startDraft } from "@/lib/wizard/drafts/service";
+import { STARTING_POINTS } from "@/lib/wizard/starting-points";
 import { protocolContentSchema } from "@/lib/protocols/content";
 import { createUser } from "@/lib/users/service";
-import { closeDb, db, freshSchema } from "./support/db";
+import { closeDb, db, freshSchema } from "../support/db";
 
 describe("planner wizard drafts", () => {
   let dana = { id: 0, email: "dana.wiz@example.test", name: "Dana Wiz", role: "developer" as const };
@@ -62,7 +62,7 @@ describe("planner wizard drafts", () => {
     await saveStepInputs(dana, draft.id, "device", defaultDevice());
     await saveStepInputs(dana, draft.id, "limits", defaultLimits());
     const { planWindows } = await import("@/lib/planner");
-    const { readyInputs, toWindowsRequest } = await import("@/lib/planner-wizard/request");
+    const { readyInputs, toWindowsRequest } = await import("@/lib/wizard/request");
     const ready = readyInputs((await getOwnDraft(dana, draft.id)).inputs);
     if (!ready.ok) throw new Error(ready.message);
     const w = planWindows(toWindowsRequest(ready)).windows[0];

@@ -3,7 +3,7 @@ import type { WindowsRequest } from "@/lib/planner/schema";
 import { bufferChoice, bufferStepSchema, type BufferStepValues } from "./buffer-form";
 import { deviceStepSchema, meanFlowSpeed, stepFrequencyRange, stepSI, type DeviceStepValues } from "./device-form";
 import { limitsStepSchema, type LimitsStepValues } from "./limits-form";
-import type { WizardInputs } from "./mapper";
+import type { WizardInputs } from "./drafts/mapper";
 import { populationsStepSchema, type PopulationsStepOutput } from "./population-form";
 
 /** Seed every plan uses unless the user changes it, so a saved version reproduces exactly. */
