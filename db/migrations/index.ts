@@ -11,6 +11,7 @@ import * as m300 from "./20261202_300_auth_attempts";
 import * as m310 from "./20261202_310_user_sessions";
 import * as m320 from "./20261202_320_password_links";
 import * as m400 from "./20261203_400_rate_windows";
+import * as m700 from "./20261203_700_fit_data_in_store";
 
 /**
  * Every migration, in order. Adding one: create `db/migrations/<date>_<nnn>_<name>.ts` exporting `up` and `down`,
@@ -29,6 +30,7 @@ const MIGRATIONS: [string, Knex.Migration][] = [
   ["20261202_310_user_sessions", m310],
   ["20261202_320_password_links", m320],
   ["20261203_400_rate_windows", m400],
+  ["20261203_700_fit_data_in_store", m700],
 ];
 
 /** Knex migration source backed by the list above. */

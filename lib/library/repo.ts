@@ -1,6 +1,7 @@
 import type { Knex } from "knex";
 import { db } from "@/db/knex";
 import { toItemHead, toItemVersion, type ItemRow, type ItemVersion, type LibraryItemHead, type VersionRow } from "./mapper";
+import type { DataFileRef } from "./data-files";
 import type { ProvenanceKind } from "./schemas";
 
 /** List filters: text search over name and organisation, category, archived state, sort and page. */
@@ -20,8 +21,8 @@ export interface NewVersion {
   provenance: ProvenanceKind;
   provenanceSource: string;
   fit?: unknown;
-  dataFileName?: string | null;
-  dataFileText?: string | null;
+  /** The data file the values were fitted from, already in the object store (lib/library/data-files.ts). */
+  dataFile?: DataFileRef | null;
   changeNote: string;
   createdBy: number;
 }
@@ -32,6 +33,16 @@ export interface ItemColumns {
   category: string | null;
   organisation: string;
 }
+
+const DATA_FILE_COLUMNS = ["data_file_name", "data_file_key", "data_file_sha256", "data_file_size"] as const;
+interface DataFileRow {
+  data_file_name: string | null;
+  data_file_key: string | null;
+  data_file_sha256: string | null;
+  data_file_size: number | null;
+}
+const toDataFileRef = (r: DataFileRow): DataFileRef | null =>
+  r.data_file_name && r.data_file_key ? { name: r.data_file_name, key: r.data_file_key, sha256: r.data_file_sha256 ?? "", size: Number(r.data_file_size ?? 0) } : null;
 
 const SORTS = { name: "i.name", updated: "i.updated_at", created: "i.created_at" } as const;
 
@@ -83,10 +94,16 @@ export function versionedRepo(itemsTable: string, versionsTable: string) {
       return ((await versions(conn).where("v.item_id", itemId).orderBy("v.version", "desc")) as VersionRow[]).map(toItemVersion);
     },
 
-    /** The uploaded data file of a version (fitted values), or null. */
-    async findDataFile(conn: Knex, itemId: number, version: number): Promise<{ name: string; text: string } | null> {
-      const row = await conn(versionsTable).where({ item_id: itemId, version }).first("data_file_name", "data_file_text");
-      return row?.data_file_name ? { name: row.data_file_name, text: row.data_file_text ?? "" } : null;
+    /** Where the uploaded data file of a version (fitted values) is stored, or null. */
+    async findDataFile(conn: Knex, itemId: number, version: number): Promise<DataFileRef | null> {
+      const row = (await conn(versionsTable).where({ item_id: itemId, version }).first(...DATA_FILE_COLUMNS)) as DataFileRow | undefined;
+      return row ? toDataFileRef(row) : null;
+    },
+
+    /** Which of these object keys a version row names (the orphan sweep's reference check). */
+    async dataFileKeysAmong(conn: Knex, keys: string[]): Promise<string[]> {
+      if (keys.length === 0) return [];
+      return (await conn(versionsTable).whereIn("data_file_key", keys).distinct("data_file_key")).map((r: { data_file_key: string }) => r.data_file_key);
     },
 
     /** A page of items with the total count. */
@@ -132,8 +149,10 @@ export function versionedRepo(itemsTable: string, versionsTable: string) {
         provenance: v.provenance,
         provenance_source: v.provenanceSource,
         fit_json: v.fit === undefined || v.fit === null ? null : JSON.stringify(v.fit),
-        data_file_name: v.dataFileName ?? null,
-        data_file_text: v.dataFileText ?? null,
+        data_file_name: v.dataFile?.name ?? null,
+        data_file_key: v.dataFile?.key ?? null,
+        data_file_sha256: v.dataFile?.sha256 ?? null,
+        data_file_size: v.dataFile?.size ?? null,
         change_note: v.changeNote,
         created_by: v.createdBy,
       });
@@ -166,10 +185,10 @@ export function versionedRepo(itemsTable: string, versionsTable: string) {
       return (await conn(itemsTable).orderBy("id").select("id")).map((r: { id: number }) => Number(r.id));
     },
 
-    /** Reads the data-file text of every version of an item (for export). */
-    async dataFilesOf(conn: Knex, itemId: number): Promise<Map<number, { name: string; text: string }>> {
-      const rows = await conn(versionsTable).where({ item_id: itemId }).whereNotNull("data_file_name").select("version", "data_file_name", "data_file_text");
-      return new Map(rows.map((r: { version: number; data_file_name: string; data_file_text: string | null }) => [Number(r.version), { name: r.data_file_name, text: r.data_file_text ?? "" }]));
+    /** Where the data file of every version of an item is stored, by version number (for export). */
+    async dataFilesOf(conn: Knex, itemId: number): Promise<Map<number, DataFileRef>> {
+      const rows = (await conn(versionsTable).where({ item_id: itemId }).whereNotNull("data_file_key").select("version", ...DATA_FILE_COLUMNS)) as (DataFileRow & { version: number })[];
+      return new Map(rows.map((r) => [Number(r.version), toDataFileRef(r)!]));
     },
   };
 }

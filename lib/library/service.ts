@@ -3,6 +3,8 @@ import { db } from "@/db/knex";
 import { recordAudit } from "@/lib/audit/repo";
 import { ConflictError, InputError, NotFoundError } from "@/lib/errors";
 import { parseOrThrow } from "@/lib/http/zod-issues";
+import { deleteQuietly } from "@/lib/storage";
+import { readDataFileText, storeDataFile } from "./data-files";
 import { kindInfo, type ContentOf, type LibraryKind } from "./kinds";
 import type { ItemVersion, LibraryItemHead } from "./mapper";
 import type { ItemFilter, NewVersion } from "./repo";
@@ -28,7 +30,7 @@ export interface VersionInput {
   changeNote: string;
 }
 
-/** Fit details carried by a fitted version. */
+/** Fit details carried by a fitted version: the result, and the uploaded file (stored in the object store on save). */
 export interface FitAttachment {
   result: unknown;
   dataFileName: string;
@@ -158,6 +160,8 @@ export async function createItem<K extends LibraryKind>(actor: Actor, kind: K, i
  * superseded or retired refers to item version N. `baseVersion` is the version the editor started from; if someone
  * saved a newer one meanwhile the edit is refused (ConflictError) so nothing is overwritten unseen.
  * Provenance "fitted" is only kept when the base version was fitted (the fit and its data file carry forward).
+ * A new fit's data file is written to the object store first and the version row after, in one transaction; when
+ * that transaction fails the object is deleted again (StorageUnavailableError, 503, when the store is down).
  * @example await reviseItem(actor, "populations", 3, { content, provenance, changeNote: "Radius re-measured" }, { baseVersion: 2 });
  */
 export async function reviseItem<K extends LibraryKind>(
@@ -170,35 +174,40 @@ export async function reviseItem<K extends LibraryKind>(
   const info = kindInfo(kind);
   const { content, provenance, changeNote } = checkInput(kind, input);
   const mode = options.mode ?? "new-version";
-  await db.transaction(async (trx) => {
-    const lock = await info.repo.lockItem(trx, id);
-    if (!lock) throw new NotFoundError(`There is no ${info.singular} with id ${id}.`);
-    if (lock.currentVersion !== options.baseVersion)
-      throw new ConflictError(`Version ${lock.currentVersion} of this ${info.singular} was saved after you opened version ${options.baseVersion}; reload to see it, then make your change again.`);
-    const base = (await info.repo.findVersion(trx, id, lock.currentVersion))!;
-    await refuseDuplicateName(trx, kind, columns(kind, content).name, id);
-    let fit: FitAttachment | null = options.fit ?? null;
-    if (provenance.kind === "fitted" && !fit) {
-      if (base.provenance.kind !== "fitted")
-        throw new InputError([{ path: "provenanceKind", message: "Provenance: fitted values are saved from the fit page, which keeps the data file and the fit; choose measured or assumed." }]);
-      const file = await info.repo.findDataFile(trx, id, base.version);
-      fit = { result: base.fit, dataFileName: file?.name ?? "", dataFileText: file?.text ?? "" };
-    }
-    const row = { content, provenance: provenance.kind, provenanceSource: provenance.source, changeNote, fit: fit?.result ?? null, dataFileName: fit?.dataFileName || null, dataFileText: fit ? fit.dataFileText : null };
-    if (mode === "in-place") {
-      if (options.fit) throw new ConflictError("A fit is always saved as a new version.");
-      if (await isItemVersionInApprovedUse(kind, id, base.version, trx))
-        throw new ConflictError(`Version ${base.version} of this ${info.singular} is used by a protocol version that is in review or signed, so it cannot be changed in place. Save your edit as version ${base.version + 1} instead; the protocol keeps its snapshot.`);
-      await info.repo.reviseVersion(trx, id, base.version, row, actor.id);
-      await info.repo.updateHead(trx, id, base.version, columns(kind, content), actor.id);
-      await recordAudit(trx, { actor, action: "library.revise", entityType: info.entityType, entityId: id, summary: `Corrected ${info.singular} "${columns(kind, content).name}" version ${base.version} in place: ${changeNote}`, before: { version: base.version, content: base.content, provenance: base.provenance, changeNote: base.changeNote }, after: { version: base.version, content, provenance, changeNote } });
-      return;
-    }
-    const next = base.version + 1;
-    await info.repo.insertVersion(trx, id, next, { ...row, createdBy: actor.id });
-    await info.repo.updateHead(trx, id, next, columns(kind, content), actor.id);
-    await recordAudit(trx, { actor, action: options.fit ? "library.fit" : "library.version", entityType: info.entityType, entityId: id, summary: `Saved ${info.singular} "${columns(kind, content).name}" version ${next}: ${changeNote}`, before: { version: base.version }, after: { version: next, content, provenance } });
-  });
+  if (mode === "in-place" && options.fit) throw new ConflictError("A fit is always saved as a new version.");
+  const uploaded = options.fit ? await storeDataFile(options.fit.dataFileName, options.fit.dataFileText) : null;
+  try {
+    await db.transaction(async (trx) => {
+      const lock = await info.repo.lockItem(trx, id);
+      if (!lock) throw new NotFoundError(`There is no ${info.singular} with id ${id}.`);
+      if (lock.currentVersion !== options.baseVersion)
+        throw new ConflictError(`Version ${lock.currentVersion} of this ${info.singular} was saved after you opened version ${options.baseVersion}; reload to see it, then make your change again.`);
+      const base = (await info.repo.findVersion(trx, id, lock.currentVersion))!;
+      await refuseDuplicateName(trx, kind, columns(kind, content).name, id);
+      let fit = options.fit ? { result: options.fit.result, dataFile: uploaded } : null;
+      if (provenance.kind === "fitted" && !fit) {
+        if (base.provenance.kind !== "fitted")
+          throw new InputError([{ path: "provenanceKind", message: "Provenance: fitted values are saved from the fit page, which keeps the data file and the fit; choose measured or assumed." }]);
+        fit = { result: base.fit, dataFile: await info.repo.findDataFile(trx, id, base.version) };
+      }
+      const row = { content, provenance: provenance.kind, provenanceSource: provenance.source, changeNote, fit: fit?.result ?? null, dataFile: fit?.dataFile ?? null };
+      if (mode === "in-place") {
+        if (await isItemVersionInApprovedUse(kind, id, base.version, trx))
+          throw new ConflictError(`Version ${base.version} of this ${info.singular} is used by a protocol version that is in review or signed, so it cannot be changed in place. Save your edit as version ${base.version + 1} instead; the protocol keeps its snapshot.`);
+        await info.repo.reviseVersion(trx, id, base.version, row, actor.id);
+        await info.repo.updateHead(trx, id, base.version, columns(kind, content), actor.id);
+        await recordAudit(trx, { actor, action: "library.revise", entityType: info.entityType, entityId: id, summary: `Corrected ${info.singular} "${columns(kind, content).name}" version ${base.version} in place: ${changeNote}`, before: { version: base.version, content: base.content, provenance: base.provenance, changeNote: base.changeNote }, after: { version: base.version, content, provenance, changeNote } });
+        return;
+      }
+      const next = base.version + 1;
+      await info.repo.insertVersion(trx, id, next, { ...row, createdBy: actor.id });
+      await info.repo.updateHead(trx, id, next, columns(kind, content), actor.id);
+      await recordAudit(trx, { actor, action: options.fit ? "library.fit" : "library.version", entityType: info.entityType, entityId: id, summary: `Saved ${info.singular} "${columns(kind, content).name}" version ${next}: ${changeNote}`, before: { version: base.version }, after: { version: next, content, provenance } });
+    });
+  } catch (err) {
+    if (uploaded) await deleteQuietly([uploaded.key]);
+    throw err;
+  }
   return getItem(kind, id);
 }
 
@@ -218,8 +227,7 @@ export async function duplicateItem<K extends LibraryKind>(actor: Actor, kind: K
       provenance: source.current.provenance.kind,
       provenanceSource: source.current.provenance.source,
       fit: source.current.fit,
-      dataFileName: file?.name ?? null,
-      dataFileText: file?.text ?? null,
+      dataFile: file,
       changeNote: `Duplicated from "${source.name}" version ${source.currentVersion}`,
     }, "library.duplicate");
   });
@@ -244,11 +252,12 @@ export async function setArchived<K extends LibraryKind>(actor: Actor, kind: K, 
 }
 
 /**
- * The uploaded data file of a version (for fitted values), or NotFoundError.
+ * The uploaded data file of a version (for fitted values), read from the object store with its SHA-256 checked, or
+ * NotFoundError.
  * @example const file = await getDataFile("populations", 3, 2); file.name // "crossovers.csv"
  */
 export async function getDataFile(kind: LibraryKind, id: number, version: number): Promise<{ name: string; text: string }> {
   const file = await kindInfo(kind).repo.findDataFile(db, id, version);
   if (!file) throw new NotFoundError(`Version ${version} of ${kindInfo(kind).singular} ${id} has no data file.`);
-  return file;
+  return { name: file.name, text: await readDataFileText(file) };
 }

@@ -2,6 +2,8 @@ import { z } from "zod";
 import { db } from "@/db/knex";
 import { zodIssues } from "@/lib/http/zod-issues";
 import { InputError } from "@/lib/errors";
+import { deleteQuietly } from "@/lib/storage";
+import { readDataFileText, storeDataFile, type DataFileRef } from "./data-files";
 import { kindInfo, LIBRARY_KINDS, type LibraryKind } from "./kinds";
 import { changeNoteSchema, fitProvenanceSchema, provenanceSchema } from "./schemas";
 import { insertNewItem, type Actor } from "./service";
@@ -37,7 +39,8 @@ export const libraryFileSchema = z.object({
 export type LibraryFile = z.infer<typeof libraryFileSchema> & { items: z.infer<typeof exportedItemSchema>[] };
 
 /**
- * Every item of a kind with all its versions, fit results and data files, as one JSON-ready object (SI units).
+ * Every item of a kind with all its versions, fit results and data files (read from the object store, SHA-256
+ * checked), as one JSON-ready object (SI units).
  * @example const file = await exportLibrary("buffers"); file.items.length
  */
 export async function exportLibrary(kind: LibraryKind): Promise<LibraryFile> {
@@ -47,6 +50,8 @@ export async function exportLibrary(kind: LibraryKind): Promise<LibraryFile> {
     const head = (await repo.findItem(db, id))!;
     const files = await repo.dataFilesOf(db, id);
     const versions = (await repo.listVersions(db, id)).reverse();
+    const texts = new Map<number, string>();
+    for (const [version, ref] of files) texts.set(version, await readDataFileText(ref));
     items.push({
       name: head.name,
       archived: head.archived,
@@ -59,7 +64,7 @@ export async function exportLibrary(kind: LibraryKind): Promise<LibraryFile> {
           changeNote: v.changeNote,
           createdAt: v.createdAt.toISOString(),
           createdBy: v.createdBy.email,
-          fit: v.fit || file ? { result: v.fit ?? {}, dataFileName: file?.name ?? "data.csv", dataFileText: file?.text ?? "" } : null,
+          fit: v.fit || file ? { result: v.fit ?? {}, dataFileName: file?.name ?? "data.csv", dataFileText: texts.get(v.version) ?? "" } : null,
         };
       }),
     });
@@ -97,7 +102,8 @@ function checkItem(kind: LibraryKind, raw: unknown): { ok: true; item: z.infer<t
  * Imports an export file into library `kind`. Each item is checked with the same schemas as the forms' server side;
  * an item is refused as a whole (nothing of it saved) when any version fails, when an active item of that name exists,
  * or when the file names it twice. Accepted items are saved each in its own transaction, versions renumbered from 1
- * in their original order, authored by the importer (the original author and date go into the change note).
+ * in their original order, authored by the importer (the original author and date go into the change note). An item's
+ * data files are written to the object store before its transaction and deleted again when it fails.
  * Throws InputError when the file itself is not a library file of this kind.
  * @example const report = await importLibrary(actor, "buffers", JSON.parse(text)); report.refused[0].reasons
  */
@@ -123,13 +129,19 @@ export async function importLibrary(actor: Actor, kind: LibraryKind, raw: unknow
       continue;
     }
     namesInFile.add(key);
+    if (!checked.item.archived && (await info.repo.findActiveByName(db, last.name)) !== null) {
+      report.refused.push({ index, name: last.name, reasons: [`the ${info.singular} library already has an item called "${last.name}"`] });
+      continue;
+    }
+    const stored = new Map<number, DataFileRef>();
     try {
+      for (const v of checked.item.versions) if (v.fit) stored.set(v.version, await storeDataFile(v.fit.dataFileName, v.fit.dataFileText));
       const id = await db.transaction(async (trx) => {
         if (!checked.item.archived && (await info.repo.findActiveByName(trx, last.name)) !== null)
           throw new InputError([{ path: "name", message: `the ${info.singular} library already has an item called "${last.name}"` }]);
         const [first, ...rest] = checked.item.versions;
         const note = (v: typeof first) => `${v.changeNote}${v.createdBy || v.createdAt ? ` (imported; first saved${v.createdBy ? ` by ${v.createdBy}` : ""}${v.createdAt ? ` on ${v.createdAt.slice(0, 10)}` : ""})` : " (imported)"}`.slice(0, 500);
-        const row = (v: typeof first) => ({ provenance: v.provenance.kind, provenanceSource: v.provenance.source, fit: v.fit?.result ?? null, dataFileName: v.fit?.dataFileName ?? null, dataFileText: v.fit?.dataFileText ?? null, changeNote: note(v) });
+        const row = (v: typeof first) => ({ provenance: v.provenance.kind, provenanceSource: v.provenance.source, fit: v.fit?.result ?? null, dataFile: stored.get(v.version) ?? null, changeNote: note(v) });
         const itemId = await insertNewItem(trx, actor, kind, checked.contents[0] as never, row(first), "library.import");
         for (const [j, v] of rest.entries()) await info.repo.insertVersion(trx, itemId, j + 2, { ...row(v), content: checked.contents[j + 1], createdBy: actor.id });
         const cols = { name: last.name, organisation: (last as { organisation?: string }).organisation ?? "", category: info.category(last as never) };
@@ -139,6 +151,7 @@ export async function importLibrary(actor: Actor, kind: LibraryKind, raw: unknow
       });
       report.imported.push({ index, name: last.name, id, versions: checked.item.versions.length });
     } catch (err) {
+      await deleteQuietly([...stored.values()].map((f) => f.key));
       if (!(err instanceof InputError)) throw err;
       report.refused.push({ index, name: last.name, reasons: err.issues.map((i) => i.message) });
     }

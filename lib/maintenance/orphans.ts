@@ -1,5 +1,6 @@
 import { attachmentKeysAmong } from "@/lib/runs/repo";
 import { sheetKeysAmong } from "@/lib/bench-sheet/stored-repo";
+import { dataFileKeysAmong } from "@/lib/library/data-files";
 import { sweepOrphans } from "@/lib/storage";
 
 /**
@@ -7,5 +8,5 @@ import { sweepOrphans } from "@/lib/storage";
  * @example await sweepStoredFiles() // { examined: 42, removed: [] }
  */
 export function sweepStoredFiles(options: { olderThanMs?: number; now?: Date } = {}): Promise<{ examined: number; removed: string[] }> {
-  return sweepOrphans({ "attachments/": attachmentKeysAmong, "bench-sheets/": sheetKeysAmong }, options);
+  return sweepOrphans({ "attachments/": attachmentKeysAmong, "bench-sheets/": sheetKeysAmong, "fit-data/": dataFileKeysAmong }, options);
 }

@@ -1,4 +1,3 @@
-import net from "node:net";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as postRun } from "@/app/api/v1/runs/route";
 import { sweepStoredFiles } from "@/lib/maintenance/orphans";
@@ -8,6 +7,7 @@ import { createToken } from "@/lib/tokens/service";
 import { findUserById, insertUser } from "@/lib/users/repo";
 import { insertBenchVersion, type InsertedVersion } from "@/tests/support/bench-fixture";
 import { closeDb, db, freshSchema } from "./support/db";
+import { relay } from "./support/store-relay";
 
 /**
  * Consistency between the object store and MariaDB: a store that stops mid-upload (503, nothing recorded), a database
@@ -20,38 +20,6 @@ const realEndpoint = process.env.S3_ENDPOINT!;
 const realBucket = process.env.S3_BUCKET;
 const DAY_AND_HOUR_MS = 25 * 3600 * 1000;
 const run = (versionId: number) => ({ versionId, bufferLot: "B-0500", conductivityUsPerCm: "98", measuredAtC: "24", operatingTemperatureC: "22", frequencyKHz: "350", voltageVpp: "14", countingMethod: "haemocytometer" });
-
-/** A TCP relay in front of the store that can be "switched off": every connection cut, the port closed. */
-async function relay(onRequest: (n: number) => boolean): Promise<{ endpoint: string; close: () => Promise<void> }> {
-  const target = new URL(realEndpoint);
-  const sockets = new Set<net.Socket>();
-  let requests = 0;
-  let down = false;
-  const server = net.createServer((client) => {
-    sockets.add(client);
-    const upstream = net.connect(Number(target.port), target.hostname);
-    sockets.add(upstream);
-    client.on("data", (chunk) => {
-      if (down) return;
-      if (/^(PUT|GET|HEAD|POST|DELETE) /.test(chunk.subarray(0, 8).toString("latin1")) && !onRequest(++requests)) {
-        down = true;
-        for (const s of sockets) s.destroy();
-        server.close();
-        return;
-      }
-      upstream.write(chunk);
-    });
-    upstream.on("data", (chunk) => client.write(chunk));
-    const end = () => { client.destroy(); upstream.destroy(); };
-    client.on("close", end);
-    upstream.on("close", end);
-    client.on("error", end);
-    upstream.on("error", end);
-  });
-  await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
-  const { port } = server.address() as net.AddressInfo;
-  return { endpoint: `http://127.0.0.1:${port}`, close: () => new Promise((resolve) => { for (const s of sockets) s.destroy(); server.close(() => resolve()); }) };
-}
 
 async function attachmentKeys(): Promise<string[]> {
   const keys: string[] = [];
@@ -89,7 +57,7 @@ describe("run attachments: store first, then one transaction", () => {
   it("answers 503 'file storage is unavailable' and records nothing when the store stops mid-upload; the sweep removes what was left", async () => {
     const before = await counts();
     const keysBefore = await attachmentKeys();
-    const store = await relay((n) => n < 2); // the first PUT goes through, then the store goes away
+    const store = await relay(realEndpoint, (n) => n < 2); // the first PUT goes through, then the store goes away
     process.env.S3_ENDPOINT = store.endpoint;
     const form = new FormData();
     form.set("run", JSON.stringify(run(approved.versionId)));
