@@ -34,12 +34,17 @@ export async function up(knex: Knex): Promise<void> {
   }
 }
 
-/** Puts each data file's text back into the row (read from the store, SHA-256 checked); the objects stay for the sweep. */
+/**
+ * Puts each data file's text back into the row (read from the store, SHA-256 checked); the objects stay for the sweep.
+ * Refuses (and can be run again) when an object cannot be read, so no file is lost by a rollback.
+ */
 export async function down(knex: Knex): Promise<void> {
   for (const table of TABLES) {
-    await knex.schema.alterTable(table, (t) => {
-      t.text("data_file_text", "longtext").nullable();
-    });
+    if (!(await knex.schema.hasColumn(table, "data_file_key"))) continue;
+    if (!(await knex.schema.hasColumn(table, "data_file_text")))
+      await knex.schema.alterTable(table, (t) => {
+        t.text("data_file_text", "longtext").nullable();
+      });
     const rows: { id: number; data_file_key: string; data_file_sha256: string }[] = await knex(table).whereNotNull("data_file_key").select("id", "data_file_key", "data_file_sha256");
     for (const r of rows) {
       const { bytes } = await readObject(r.data_file_key, r.data_file_sha256);

@@ -63,6 +63,7 @@ describe("fit data files in the object store", () => {
   });
   afterAll(async () => {
     process.env.S3_ENDPOINT = realEndpoint;
+    await db.migrate.rollback(undefined, true); // while this file's bucket is still set: the rows name its objects
     process.env.S3_BUCKET = realBucket;
     await closeDb();
   });
