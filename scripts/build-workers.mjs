@@ -1,12 +1,12 @@
 // Bundles the worker-thread entries (TypeScript under lib/) into plain ES modules under build/workers/, so the worker
 // pool loads the same file under `next start`, `next dev`, vitest and tsx. Packages stay external (node_modules).
-// Run by `npm run build`, npm start and npm test before anything that renders; takes well under a second.
+// Run by `npm run build`, npm start and npm test before anything that renders or fits; takes well under a second.
 import { build } from "esbuild";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
-const entries = { "bench-sheet": "lib/bench-sheet/render-worker.ts" };
+const entries = { "bench-sheet": "lib/bench-sheet/render-worker.ts", "cell-fit": "lib/characterisation/fit-worker.ts" };
 
 await build({
   absWorkingDir: root,

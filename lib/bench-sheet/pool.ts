@@ -1,8 +1,6 @@
-import { existsSync } from "node:fs";
-import path from "node:path";
-import { pathToFileURL } from "node:url";
 import Piscina from "piscina";
 import { DomainError } from "@/lib/errors";
+import { workerBundleUrl } from "@/lib/worker-bundles";
 import type { BenchSheetLayout } from "./types";
 
 /** Too many sheets are waiting to be drawn. Maps to 503 with Retry-After. */
@@ -21,14 +19,6 @@ export const MAX_QUEUED_SHEETS = 64;
 const holder = globalThis as unknown as { sievewrightSheetPool?: Piscina };
 
 /**
- * Where the bundled worker entry lives (built by `node scripts/build-workers.mjs`, part of `npm run build`).
- * @example workerBundlePath() // "/srv/sievewright/build/workers/bench-sheet.mjs"
- */
-export function workerBundlePath(root = process.cwd()): string {
-  return path.join(root, "build", "workers", "bench-sheet.mjs");
-}
-
-/**
  * Threads for drawing PDFs: PDF_WORKERS, default 1 (on a small machine one core stays free for requests).
  * @example pdfWorkerCount() // 1
  */
@@ -39,10 +29,8 @@ export function pdfWorkerCount(): number {
 
 function pool(): Piscina {
   if (holder.sievewrightSheetPool) return holder.sievewrightSheetPool;
-  const file = workerBundlePath();
-  if (!existsSync(file)) throw new Error(`The bench-sheet worker is not built (${file} is missing): run \`node scripts/build-workers.mjs\` (part of npm run build).`);
   const threads = pdfWorkerCount();
-  holder.sievewrightSheetPool = new Piscina({ filename: pathToFileURL(file).href, minThreads: 0, maxThreads: threads, maxQueue: MAX_QUEUED_SHEETS, idleTimeout: 60_000 });
+  holder.sievewrightSheetPool = new Piscina({ filename: workerBundleUrl("bench-sheet"), minThreads: 0, maxThreads: threads, maxQueue: MAX_QUEUED_SHEETS, idleTimeout: 60_000 });
   return holder.sievewrightSheetPool;
 }
 

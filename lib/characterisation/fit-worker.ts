@@ -1,6 +1,7 @@
 /**
- * The task one worker thread runs: fit a chunk of cells with the pure engine (lib/fitting). Loaded by
- * fit-worker-entry.mjs; never imported by the app bundle.
+ * The task one worker thread runs: fit a chunk of cells with the pure engine (lib/fitting). Bundled by
+ * scripts/build-workers.mjs into build/workers/cell-fit.mjs, which the pool in pool.ts loads; never imported by the
+ * app bundle.
  */
 import { fitOneCell, type CellInput, type CellResult, type CommonSetup } from "@/lib/fitting";
 

@@ -1,12 +1,10 @@
 /**
  * Cell fits off the request thread: a Piscina pool of worker threads running the pure engine, so a population of
- * hundreds of cells neither blocks other requests nor waits on one core. The worker entry is a file on disk
- * (lib/characterisation/fit-worker-entry.mjs, resolved from the working directory) so the pool works the same under
- * `next start` and under tsx/vitest.
+ * hundreds of cells neither blocks other requests nor waits on one core. The worker entry (fit-worker.ts) is bundled
+ * by scripts/build-workers.mjs into build/workers/cell-fit.mjs, plain JavaScript that a thread loads in well under a
+ * second, so the pool works the same under `next start` and under tsx/vitest.
  */
 import os from "node:os";
-import path from "node:path";
-import { pathToFileURL } from "node:url";
 import { Piscina } from "piscina";
 import {
   cellSpectrumRequestSchema,
@@ -18,6 +16,7 @@ import {
   type PopulationFit,
 } from "@/lib/fitting";
 import { FittingInputError } from "@/lib/fitting/errors";
+import { workerBundleUrl } from "@/lib/worker-bundles";
 import type { FitTask } from "./fit-worker";
 
 /** Cells per task: small enough for smooth progress, large enough that messaging costs little. */
@@ -32,8 +31,7 @@ export function poolSize(): number {
 
 function getPool(): Piscina<FitTask, CellResult[]> {
   if (!pool) {
-    const entry = path.join(process.cwd(), "lib", "characterisation", "fit-worker-entry.mjs");
-    pool = new Piscina({ filename: pathToFileURL(entry).href, maxThreads: poolSize(), minThreads: 1, idleTimeout: 60_000 });
+    pool = new Piscina({ filename: workerBundleUrl("cell-fit"), maxThreads: poolSize(), minThreads: 1, idleTimeout: 60_000 });
     pool.on("error", (err) => console.error("cell-fit worker pool error", err));
   }
   return pool;

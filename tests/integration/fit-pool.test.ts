@@ -6,7 +6,7 @@ import { FittingInputError } from "@/lib/fitting/errors";
 import { fitPopulationFromCells, type CommonSetup } from "@/lib/fitting";
 import { InputError } from "@/lib/errors";
 
-// The pool runs real worker threads (lib/characterisation/fit-worker-entry.mjs); no database needed.
+// The pool runs real worker threads (build/workers/cell-fit.mjs, bundled by scripts/build-workers.mjs); no database needed.
 afterAll(() => closeFitPool());
 
 const body = CELLS_FIT_EXAMPLE.body as CommonSetup & { cells: { id: string; radius: number; points: { frequency: number; value: number }[] }[] };
