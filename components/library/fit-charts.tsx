@@ -1,28 +1,22 @@
 "use client";
 
 import { VictoryArea, VictoryAxis, VictoryChart, VictoryLabel, VictoryLine, VictoryScatter } from "victory";
+import { AXIS_STYLE as AXIS, CHART_PADDING as PAD, ValueAxisTitle } from "@/components/charts/axes";
+import { formatFrequency, sig } from "@/lib/charts/format";
+import { logTicks } from "@/lib/charts/log-ticks";
 import type { MembraneFit } from "@/lib/fitting";
 import { fromSI } from "@/lib/units/lab";
 
-const AXIS = { tickLabels: { fontSize: 11, fill: "#3e4c59" }, axisLabel: { fontSize: 12, fill: "#1f2933" }, grid: { stroke: "#d9d4c7", strokeDasharray: "2 4" } };
-
-function decades(lo: number, hi: number): number[] {
-  const out: number[] = [];
-  for (let e = Math.floor(Math.log10(lo)); e <= Math.ceil(Math.log10(hi)); e++) for (const m of [1, 2, 5]) {
-    const v = m * 10 ** e;
-    if (v >= lo * 0.999 && v <= hi * 1.001) out.push(v);
-  }
-  return out;
-}
-
+const WIDTH = 560;
 const mS = (s: number) => fromSI("mS_m", s);
-const kHz = (hz: number) => fromSI("kHz", hz);
+/** Conductivity ticks (mS/m) that fit the plot's width without touching. */
+const conductivityTicks = (x: [number, number]) => logTicks(x[0], x[1], { widthPx: WIDTH - PAD.left - PAD.right, format: (v) => sig(v, 2) });
 
 /** Measured crossovers (circles) against the fitted single-shell curve (line) with its 95 % band, both axes logarithmic. */
 export function FitCurveChart({ fit }: { fit: MembraneFit }) {
-  const pts = fit.residuals.map((r) => ({ x: mS(r.conductivity), y: kHz(r.observed), row: r.rowNumber }));
-  const curve = fit.curve.points.filter((p) => p.crossoverFrequency !== null).map((p) => ({ x: mS(p.conductivity), y: kHz(p.crossoverFrequency!) }));
-  const band = fit.curve.points.filter((p) => p.lower !== null && p.upper !== null && p.lower > 0).map((p) => ({ x: mS(p.conductivity), y: kHz(p.upper!), y0: kHz(p.lower!) }));
+  const pts = fit.residuals.map((r) => ({ x: mS(r.conductivity), y: r.observed, row: r.rowNumber }));
+  const curve = fit.curve.points.filter((p) => p.crossoverFrequency !== null).map((p) => ({ x: mS(p.conductivity), y: p.crossoverFrequency! }));
+  const band = fit.curve.points.filter((p) => p.lower !== null && p.upper !== null && p.lower > 0).map((p) => ({ x: mS(p.conductivity), y: p.upper!, y0: p.lower! }));
   const xs = [...pts.map((p) => p.x), ...curve.map((p) => p.x)];
   const ys = [...pts.map((p) => p.y), ...curve.map((p) => p.y)];
   const x: [number, number] = [Math.min(...xs) * 0.8, Math.max(...xs) * 1.25];
@@ -31,9 +25,10 @@ export function FitCurveChart({ fit }: { fit: MembraneFit }) {
     <figure className="m-0" data-testid="fit-curve-chart">
       <figcaption className="text-sm font-medium">Measured crossovers and the fitted curve</figcaption>
       <div style={{ aspectRatio: "560 / 300" }}>
-      <VictoryChart scale={{ x: "log", y: "log" }} domain={{ x, y }} width={560} height={300} padding={{ top: 12, bottom: 48, left: 74, right: 16 }}>
-        <VictoryAxis tickValues={decades(x[0], x[1])} tickFormat={(t: number) => String(t)} label="Medium conductivity (mS/m, log scale)" axisLabelComponent={<VictoryLabel dy={8} />} style={AXIS} />
-        <VictoryAxis dependentAxis tickValues={decades(y[0], y[1])} tickFormat={(t: number) => String(t)} label="First crossover (kHz, log scale)" axisLabelComponent={<VictoryLabel dy={-38} />} style={AXIS} />
+      <VictoryChart scale={{ x: "log", y: "log" }} domain={{ x, y }} width={WIDTH} height={300} padding={PAD}>
+        <VictoryAxis tickValues={conductivityTicks(x)} tickFormat={(t: number) => sig(t, 2)} label="Medium conductivity (mS/m, log scale)" axisLabelComponent={<VictoryLabel dy={8} />} style={AXIS} />
+        <VictoryAxis dependentAxis tickValues={logTicks(y[0], y[1], { widthPx: 300 - PAD.top - PAD.bottom, format: (f) => formatFrequency(f, 2), vertical: true })} tickFormat={(t: number) => formatFrequency(t, 2)} style={AXIS} />
+        <ValueAxisTitle text="First crossover frequency (log scale)" />
         {band.length > 1 && <VictoryArea data={band} style={{ data: { fill: "#2f4f8f", fillOpacity: 0.15, stroke: "none" } }} />}
         <VictoryLine data={curve} style={{ data: { stroke: "#2f4f8f", strokeWidth: 2 } }} />
         <VictoryScatter data={pts} size={4.5} style={{ data: { fill: "#ffffff", stroke: "#1f2933", strokeWidth: 1.6 } }} />
@@ -54,11 +49,12 @@ export function ResidualsChart({ fit }: { fit: MembraneFit }) {
     <figure className="m-0" data-testid="residuals-chart">
       <figcaption className="text-sm font-medium">Residuals (measured − fitted, % of measured)</figcaption>
       <div style={{ aspectRatio: "560 / 220" }}>
-      <VictoryChart scale={{ x: "log", y: "linear" }} domain={{ x, y: [-m, m] }} width={560} height={220} padding={{ top: 12, bottom: 48, left: 74, right: 16 }}>
-        <VictoryAxis tickValues={decades(x[0], x[1])} tickFormat={(t: number) => String(t)} label="Medium conductivity (mS/m, log scale)" axisLabelComponent={<VictoryLabel dy={8} />} style={AXIS} offsetY={48} />
-        <VictoryAxis dependentAxis tickFormat={(t: number) => `${t.toFixed(Math.abs(m) < 5 ? 1 : 0)} %`} label="Residual" axisLabelComponent={<VictoryLabel dy={-38} />} style={AXIS} />
+      <VictoryChart scale={{ x: "log", y: "linear" }} domain={{ x, y: [-m, m] }} width={WIDTH} height={220} padding={PAD}>
+        <VictoryAxis tickValues={conductivityTicks(x)} tickFormat={(t: number) => sig(t, 2)} label="Medium conductivity (mS/m, log scale)" axisLabelComponent={<VictoryLabel dy={8} />} style={AXIS} offsetY={PAD.bottom} />
+        <VictoryAxis dependentAxis crossAxis={false} tickCount={5} tickFormat={(t: number) => `${t.toFixed(Math.abs(m) < 5 ? 1 : 0)} %`} style={AXIS} />
+        <ValueAxisTitle text="Residual (% of the measured crossover)" />
         <VictoryLine data={[{ x: x[0], y: 0 }, { x: x[1], y: 0 }]} style={{ data: { stroke: "#1f2933", strokeWidth: 1 } }} />
-        <VictoryScatter data={pts} size={4} symbol="diamond" labels={({ datum }: { datum: { label: string } }) => datum.label} labelComponent={<VictoryLabel dy={-9} style={{ fontSize: 9, fill: "#616e7c" }} />} style={{ data: { fill: "#a4471c" } }} />
+        <VictoryScatter data={pts} size={4} symbol="diamond" labels={({ datum }: { datum: { label: string } }) => datum.label} labelComponent={<VictoryLabel dy={-12} style={{ fontSize: 9, fill: "#616e7c" }} />} style={{ data: { fill: "#a4471c" } }} />
       </VictoryChart>
       </div>
     </figure>
