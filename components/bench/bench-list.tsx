@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { utcText } from "@/lib/bench-sheet/format";
+import { formatUtcMinute } from "@/lib/format/time";
 
 /** One approved, current version as the bench list shows it. */
 export interface BenchListItem {
@@ -31,7 +31,7 @@ export function BenchList({ items }: { items: BenchListItem[] }) {
             <td>v{it.number}</td>
             <td>
               {it.signedBy}
-              <span className="block text-xs text-ink-muted">{it.signedAt ? utcText(it.signedAt) : "not signed"}</span>
+              <span className="block text-xs text-ink-muted">{it.signedAt ? formatUtcMinute(it.signedAt) : "not signed"}</span>
               {!it.intact && <span className="pill border-danger/40 bg-danger-light text-danger">content does not match its signature</span>}
             </td>
             <td className="whitespace-nowrap text-right">

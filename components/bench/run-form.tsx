@@ -6,6 +6,7 @@ import { useState } from "react";
 import { useForm, type FieldPath } from "react-hook-form";
 import type { z } from "zod";
 import { RUN_LIMITS, recordRunSchema } from "@/lib/runs/schemas";
+import { formatMeterConductivity } from "@/lib/units/format";
 import { useHydrated } from "@/components/forms/use-hydrated";
 
 type In = z.input<typeof recordRunSchema>;
@@ -83,7 +84,7 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
     setFileInputKey((k) => k + 1);
     setStatus({
       ok: true,
-      text: `Run recorded. Conductivity ${run.conductivityAccepted ? "within" : "OUTSIDE"} the acceptance range (${(run.conductivity25 * 1e4).toPrecision(3)} µS/cm at 25 °C).`,
+      text: `Run recorded. Conductivity ${run.conductivityAccepted ? "within" : "OUTSIDE"} the acceptance range (${formatMeterConductivity(run.conductivity25)} at 25 °C).`,
     });
     router.refresh();
   }

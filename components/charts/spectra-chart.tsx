@@ -1,7 +1,8 @@
 "use client";
 
 import { VictoryArea, VictoryAxis, VictoryChart, VictoryContainer, VictoryLabel, VictoryLine, VictoryScatter } from "victory";
-import { decadeTicks, formatFrequency } from "@/lib/charts/format";
+import { decadeTicks } from "@/lib/charts/ticks";
+import { formatFrequency } from "@/lib/units/format";
 import { layoutLabels, textWidth } from "@/lib/charts/label-layout";
 import type { SpectrumSeries } from "@/lib/wizard/spectra-request";
 import { DepPatterns, DepSwatch } from "./dep-patterns";

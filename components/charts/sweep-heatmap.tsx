@@ -2,7 +2,9 @@
 
 import { useEffect, useMemo, useRef, useState } from "react";
 import { divergingHex, divergingLut, lutIndex } from "@/lib/charts/diverging-scale";
-import { decadeTicks, formatConductivity, formatFrequency, sig } from "@/lib/charts/format";
+import { decadeTicks } from "@/lib/charts/ticks";
+import { formatConductivity, formatFrequency } from "@/lib/units/format";
+import { sig } from "@/lib/units/number";
 import { layoutLabels, textWidth } from "@/lib/charts/label-layout";
 
 /** A window drawn on the map: its conductivity row and band. */
@@ -85,7 +87,7 @@ export function SweepHeatmap({ data, marker, bufferConductivity, onPick }: { dat
     ctx.fillText("Frequency (log scale)", PAD.left + (W - PAD.left - PAD.right) / 2, H - 8);
     ctx.textAlign = "right";
     for (const t of decadeTicks(cMin, cMax).concat(single ? [c[0]] : [])) {
-      ctx.fillText(formatConductivity(t, 2), PAD.left - 6, ly(t) + 4);
+      ctx.fillText(formatConductivity(t, { digits: 2 }), PAD.left - 6, ly(t) + 4);
     }
     ctx.save();
     ctx.translate(14, PAD.top + (H - PAD.top - PAD.bottom) / 2);
@@ -189,7 +191,7 @@ export function SweepHeatmap({ data, marker, bufferConductivity, onPick }: { dat
       />
       <p className="min-h-5 text-xs text-ink-soft" aria-live="off" data-testid="heatmap-readout">
         {hover && k >= 0
-          ? `${formatFrequency(f[hover.j])}, ${formatConductivity(c[hover.i], 3, true)}: recovery ${sig(data.recovery[k] * 100, 3)} %, purity ${sig(data.purity[k] * 100, 3)} %, ${data.reK ? `target's mean cell Re[K] ${sig(data.reK[k], 2)} (${data.reK[k] >= 0 ? "positive" : "negative"} DEP)` : `target moves by ${data.values[k] >= 0 ? "positive" : "negative"} DEP`}; ${data.feasible[k] ? "meets every limit" : data.blockers?.[k] ? `refused by: ${data.blockers[k]}` : "fails a limit or the separation threshold"}.`
+          ? `${formatFrequency(f[hover.j])}, ${formatConductivity(c[hover.i], { meter: true })}: recovery ${sig(data.recovery[k] * 100, 3)} %, purity ${sig(data.purity[k] * 100, 3)} %, ${data.reK ? `target's mean cell Re[K] ${sig(data.reK[k], 2)} (${data.reK[k] >= 0 ? "positive" : "negative"} DEP)` : `target moves by ${data.values[k] >= 0 ? "positive" : "negative"} DEP`}; ${data.feasible[k] ? "meets every limit" : data.blockers?.[k] ? `refused by: ${data.blockers[k]}` : "fails a limit or the separation threshold"}.`
           : "Point at the map to read the values there."}
       </p>
       <figcaption className="mt-2 space-y-1 text-xs text-ink-soft">

@@ -1,4 +1,4 @@
-import { sig } from "@/lib/charts/format";
+import { sig } from "@/lib/units/number";
 import { textWidth } from "@/lib/charts/label-layout";
 import type { TornadoBar } from "@/lib/wizard/results-data";
 

@@ -2,7 +2,7 @@ import Link from "next/link";
 import type { Role } from "@/lib/auth/roles";
 import { openWorkOf, recentRuns, versionStateCounts, versionsInUse } from "@/lib/dashboard/overview";
 import { formatDate, formatDateTime } from "@/lib/format/time";
-import { formatPercent } from "@/lib/format/units";
+import { formatPercent } from "@/lib/units/format";
 
 function Figure({ label, value, href }: { label: string; value: number; href: string }) {
   return (

@@ -5,7 +5,8 @@ import { useMemo, useState } from "react";
 import { CROSSOVER_CSV_COLUMNS, listUnits, parseCrossoverCsv, type CrossoverCsvResult, type MembraneFit } from "@/lib/fitting";
 import { InputError } from "@/lib/errors";
 import { runCrossoverFit, type CrossoverFitRequest } from "@/lib/library/fit-run";
-import { formatIn, fromSI, tidy, toSI } from "@/lib/units/lab";
+import { formatIn, fromSI, toSI } from "@/lib/units/lab";
+import { tidy } from "@/lib/units/number";
 import { FitCurveChart, ResidualsChart } from "./fit-charts";
 
 interface Props {

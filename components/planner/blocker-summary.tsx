@@ -1,5 +1,6 @@
 import type { Diagnosis } from "@/lib/planner";
-import { formatConductivity, formatFrequency, sig } from "@/lib/charts/format";
+import { formatConductivity, formatFrequency } from "@/lib/units/format";
+import { sig } from "@/lib/units/number";
 
 const points = (n: number) => `${n} grid point${n === 1 ? "" : "s"}`;
 
@@ -22,7 +23,7 @@ export function BlockerSummary({ diagnosis }: { diagnosis: Diagnosis }) {
             <tbody>
               {d.best.map((b) => (
                 <tr key={`${b.frequency}-${b.conductivity}`}>
-                  <td>{formatFrequency(b.frequency)} at {formatConductivity(b.conductivity, 3, true)}</td>
+                  <td>{formatFrequency(b.frequency)} at {formatConductivity(b.conductivity, { meter: true })}</td>
                   <td>{sig(b.recovery * 100, 3)} % / {sig(b.purity * 100, 3)} %</td>
                   <td>{b.feasible ? "nothing (meets every limit)" : b.reasons.map((r) => <span key={r.blocker} className="block"><strong>{r.label}</strong>: {r.detail}</span>)}</td>
                   <td>{b.feasible ? "—" : b.reasons.map((r) => <span key={r.blocker} className="block">{r.change}</span>)}</td>

@@ -4,7 +4,8 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useFieldArray, useForm, useWatch } from "react-hook-form";
-import { formatConductivity, sig } from "@/lib/charts/format";
+import { formatConductivity } from "@/lib/units/format";
+import { sig } from "@/lib/units/number";
 import { ADDITION_KINDS, additionUnitLabel, BUFFER_STEP_FIELDS, bufferChoice, bufferStepSchema, libraryBufferToStep, predictRecipe, type BufferStepValues, type LibraryBufferContent } from "@/lib/wizard/buffer-form";
 import { labelWithUnit, rangeInWords } from "@/lib/units/lab-fields";
 import { errorAt, NumField } from "@/components/forms/num-field";
@@ -127,8 +128,8 @@ export function BufferStep({ draftId, initial, library }: { draftId: number; ini
           <h2 id="buffer-summary">What the planner will use</h2>
           {values.mode === "recipe" && prediction?.result && (
             <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
-              <dt className="text-ink-muted">Conductivity at 25 °C</dt><dd data-testid="recipe-conductivity">{formatConductivity(prediction.result.conductivity25, 3, true)}</dd>
-              <dt className="text-ink-muted">At {values.temperatureC} °C</dt><dd>{formatConductivity(prediction.result.conductivity, 3, true)}</dd>
+              <dt className="text-ink-muted">Conductivity at 25 °C</dt><dd data-testid="recipe-conductivity">{formatConductivity(prediction.result.conductivity25, { meter: true })}</dd>
+              <dt className="text-ink-muted">At {values.temperatureC} °C</dt><dd>{formatConductivity(prediction.result.conductivity, { meter: true })}</dd>
               <dt className="text-ink-muted">Osmolality</dt><dd data-testid="recipe-osmolality">{Math.round(prediction.result.osmolality * 1000)} mOsm/kg</dd>
               <dt className="text-ink-muted">Viscosity</dt><dd>{sig(prediction.result.relativeViscosity, 3)} × water</dd>
               <dt className="text-ink-muted">Final volume</dt><dd>{sig(prediction.result.finalVolumeL * 1000, 4)} mL</dd>
@@ -137,7 +138,7 @@ export function BufferStep({ draftId, initial, library }: { draftId: number; ini
           {values.mode === "recipe" && prediction?.result?.warnings.map((w) => <p key={w.code} className="notice">{w.message}</p>)}
           {values.mode === "recipe" && prediction?.error && <p className="field-error">{prediction.error}</p>}
           {values.mode !== "recipe" && choice && (
-            <p className="text-sm">{choice.conductivity25 !== null ? `Medium conductivity ${formatConductivity(choice.conductivity25, 3, true)} at 25 °C.` : `Search from ${formatConductivity(choice.range25!.low)} to ${formatConductivity(choice.range25!.high)} at 25 °C.`}</p>
+            <p className="text-sm">{choice.conductivity25 !== null ? `Medium conductivity ${formatConductivity(choice.conductivity25, { meter: true })} at 25 °C.` : `Search from ${formatConductivity(choice.range25!.low)} to ${formatConductivity(choice.range25!.high)} at 25 °C.`}</p>
           )}
           <p className="text-xs text-ink-muted">Conductivity is converted to the operating temperature of the next step with 2 %/K. Predicted values are estimates: measure the buffer with a calibrated meter and an osmometer before use.</p>
           {values.mode === "recipe" && prediction?.result && (

@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { interdigitatedField } from "@/lib/dielectric";
-import { sci, sig } from "@/lib/charts/format";
+import { sig } from "@/lib/units/number";
 import { DEVICE_FIELDS } from "@/lib/devices/fields";
 import { deviceStepSchema, libraryDeviceToStep, meanFlowSpeed, STEP_FIELD_OF, type DeviceStepValues, type LibraryDeviceContent } from "@/lib/wizard/device-form";
 import { labelWithUnit, rangeInWords } from "@/lib/units/lab-fields";
@@ -29,8 +29,8 @@ export function DeviceStep({ draftId, initial, library }: { draftId: number; ini
   };
   let gammaText = "—";
   try {
-    if (values.geometry === "interdigitated") gammaText = `${sci(interdigitatedField(values.electrodeWidth * 1e-6, values.electrodeGap * 1e-6, values.evalHeight * 1e-6).gamma, 3)} m⁻³ (interdigitated preset, fundamental mode)`;
-    else if (Number.isFinite(values.gamma)) gammaText = `${sci(values.gamma, 3)} m⁻³ (your value)`;
+    if (values.geometry === "interdigitated") gammaText = `${sig(interdigitatedField(values.electrodeWidth * 1e-6, values.electrodeGap * 1e-6, values.evalHeight * 1e-6).gamma, 3)} m⁻³ (interdigitated preset, fundamental mode)`;
+    else if (Number.isFinite(values.gamma)) gammaText = `${sig(values.gamma, 3)} m⁻³ (your value)`;
   } catch {
     gammaText = "— (check the dimensions)";
   }

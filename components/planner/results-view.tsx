@@ -7,7 +7,8 @@ import { useMemo, useRef, useState } from "react";
 import type { SpectraResult } from "@/lib/dielectric";
 import type { SensitivityResult, WindowsResult } from "@/lib/planner";
 import type { ResultsSetup } from "@/lib/wizard/results-setup";
-import { formatConductivity, formatFrequency, sci, sig } from "@/lib/charts/format";
+import { formatConductivity, formatFrequency } from "@/lib/units/format";
+import { sig } from "@/lib/units/number";
 import { postJson } from "@/components/planner/api-client";
 import { blockerNames, parameterLabel, signedSeparation, tornadoBars } from "@/lib/wizard/results-data";
 import { heatmapSvg } from "@/lib/charts/heatmap-svg";
@@ -137,7 +138,7 @@ export function ResultsView(p: ResultsProps) {
 
       <section className="card" aria-labelledby="spectra-heading">
         <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
-          <h2 id="spectra-heading">Spectra at {formatConductivity(sigma, 3, true)}</h2>
+          <h2 id="spectra-heading">Spectra at {formatConductivity(sigma, { meter: true })}</h2>
           {spectraQ.data && <ChartDownloads name="spectra" label="Download the chart" container={spectraBox} />}
         </div>
         <ComputeState slow={slowSpectra} stale={spectraQ.isFetching && Boolean(spectraQ.data)} error={spectraQ.error ? (spectraQ.error as Error).message : null} />
@@ -160,7 +161,7 @@ export function ResultsView(p: ResultsProps) {
 
       {selected && (
         <section className="card space-y-3" aria-labelledby="selected-heading" data-testid="selected-window">
-          <h2 id="selected-heading">Window #{selected.rank}: {formatFrequency(selected.operatingPoint.frequency)} at {formatConductivity(selected.operatingPoint.conductivity, 3, true)}</h2>
+          <h2 id="selected-heading">Window #{selected.rank}: {formatFrequency(selected.operatingPoint.frequency)} at {formatConductivity(selected.operatingPoint.conductivity, { meter: true })}</h2>
           <p className="text-sm text-ink-soft">{selected.voltage.explanation}</p>
           <dl className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-4">
             <div><dt className="text-ink-muted">Drive</dt><dd>{sig(selected.voltage.vpp, 3)} Vpp ({sig(selected.voltage.rms, 3)} Vrms), sine</dd></div>
@@ -168,7 +169,7 @@ export function ResultsView(p: ResultsProps) {
             <div><dt className="text-ink-muted">Joule ΔT (checked against the limit)</dt><dd data-testid="heating-estimates">{selected.heating ? <>{sig(selected.heating.array ?? selected.heating.isolatedPair, 2)} K {selected.heating.array !== null ? "electrode array" : "isolated pair"}{selected.heating.array !== null && <span className="block text-xs text-ink-muted">isolated-pair estimate {sig(selected.heating.isolatedPair, 2)} K</span>}</> : `${sig(selected.temperatureRise, 2)} K`}</dd></div>
             {selected.region && selected.region.rows > 1 && <div><dt className="text-ink-muted">Region</dt><dd>{formatConductivity(selected.region.conductivityMin)} – {formatConductivity(selected.region.conductivityMax)}, {formatFrequency(selected.region.frequencyMin)} – {formatFrequency(selected.region.frequencyMax)}</dd></div>}
             <div><dt className="text-ink-muted">Transmembrane potential</dt><dd>{selected.transmembranePotential === null ? "—" : `${sig(selected.transmembranePotential, 2)} V`}</dd></div>
-            <div><dt className="text-ink-muted">Electrothermal / DEP speed</dt><dd>{selected.electrothermalRatio === null ? "—" : sci(selected.electrothermalRatio, 2)}</dd></div>
+            <div><dt className="text-ink-muted">Electrothermal / DEP speed</dt><dd>{selected.electrothermalRatio === null ? "—" : sig(selected.electrothermalRatio, 2)}</dd></div>
             <div><dt className="text-ink-muted">AC electro-osmosis</dt><dd>{selected.acElectroosmosis}</dd></div>
             {selected.crossoverMargins.map((m) => (
               <div key={m.populationId}><dt className="text-ink-muted">Margin to nearest crossover, {p.names[m.populationId as "target" | "other"] ?? m.populationId}</dt><dd>{m.marginDecades === null ? "no crossover nearby" : `${sig(m.marginDecades, 2)} decades (${formatFrequency(m.nearestCrossover ?? NaN)})`}</dd></div>

@@ -3,7 +3,7 @@
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import type { SpectraResult } from "@/lib/dielectric";
 import type { PopulationSpec } from "@/lib/populations/spec";
-import { formatConductivity } from "@/lib/charts/format";
+import { formatConductivity } from "@/lib/units/format";
 import { postJson } from "@/components/planner/api-client";
 import { spectraBody, toSeries } from "@/lib/wizard/spectra-request";
 import { SpectraChart, type SpectrumLine } from "@/components/charts/spectra-chart";
@@ -48,7 +48,7 @@ export function SpectrumPreview({ input, mediumNote }: { input: PreviewInput; me
     <section aria-labelledby="preview-heading" className="card" data-testid="spectrum-preview">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h2 id="preview-heading">Re[K] preview</h2>
-        <p className="text-xs text-ink-muted">Medium {formatConductivity(debounced.medium.conductivity, 3, true)}, εr {debounced.medium.permittivity.toFixed(1)} — {mediumNote}</p>
+        <p className="text-xs text-ink-muted">Medium {formatConductivity(debounced.medium.conductivity, { meter: true })}, εr {debounced.medium.permittivity.toFixed(1)} — {mediumNote}</p>
       </div>
       <ComputeState slow={slow} stale={busy && Boolean(query.data)} error={query.error ? (query.error as Error).message : null} />
       {!input.target && !input.other && <p className="text-sm text-ink-muted">Fix the fields marked below to see the spectra.</p>}

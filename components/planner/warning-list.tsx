@@ -1,5 +1,5 @@
 import type { PlannerWarning } from "@/lib/planner";
-import { sig } from "@/lib/charts/format";
+import { sig } from "@/lib/units/number";
 
 const SEVERITY = {
   info: { label: "Note", cls: "border-tide/30 bg-tide-light/50" },

@@ -1,5 +1,6 @@
 import type { OperatingWindow } from "@/lib/planner";
-import { formatConductivity, formatFrequency, sig } from "@/lib/charts/format";
+import { formatConductivity, formatFrequency } from "@/lib/units/format";
+import { sig } from "@/lib/units/number";
 
 const pct = (x: number) => `${sig(x * 100, 3)} %`;
 /** "1 decade", "0.42 decades": singular only when the shown number is exactly 1. */

@@ -1,5 +1,6 @@
 import type { ContentDiff, FieldChange } from "@/lib/protocols/diff";
-import { formatConductivity, formatFrequency, formatPercent, formatQuantity, sig } from "@/lib/format/units";
+import { formatConductivity, formatFrequency, formatPercent, formatQuantity } from "@/lib/units/format";
+import { sig } from "@/lib/units/number";
 import type { RankedWindow } from "@/lib/protocols/windows";
 
 function show(value: unknown, kind: FieldChange["kind"]): string {

@@ -1,8 +1,7 @@
 import type { ProtocolContent } from "@/lib/protocols/content";
 import { describePath } from "@/lib/protocols/fields";
-import {
-  formatCellDensity, formatConductivity, formatOsmolality, formatPercent, formatQuantity, formatVpp, sig,
-} from "@/lib/format/units";
+import { formatCellDensity, formatConductivity, formatOsmolality, formatPercent, formatQuantity, formatVpp } from "@/lib/units/format";
+import { sig } from "@/lib/units/number";
 import { PopulationTable } from "./population-table";
 
 function Rows({ rows }: { rows: [string, React.ReactNode][] }) {

@@ -1,6 +1,6 @@
 import { describePath } from "@/lib/protocols/fields";
 import type { ProtocolContent } from "@/lib/protocols/content";
-import { formatPercent, formatQuantity } from "@/lib/format/units";
+import { formatPercent, formatQuantity } from "@/lib/units/format";
 
 type Leaf = { path: string; text: string };
 

@@ -1,7 +1,6 @@
 import type { ProtocolContent } from "@/lib/protocols/content";
-import {
-  formatConductivity, formatFlow, formatFrequency, formatPercent, formatTemperature, formatTemperatureRise, formatVpp, formatVrms, sig,
-} from "@/lib/format/units";
+import { formatConductivity, formatFlow, formatFrequency, formatPercent, formatTemperature, formatTemperatureRise, formatVpp, formatVrms } from "@/lib/units/format";
+import { sig } from "@/lib/units/number";
 import { rankedWindows } from "@/lib/protocols/windows";
 
 const SEVERITY: Record<string, string> = {

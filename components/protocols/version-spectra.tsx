@@ -1,6 +1,6 @@
 import { SpectraChart, type SpectrumLine } from "@/components/charts/spectra-chart";
 import { evaluateSpectra, waterPermittivity } from "@/lib/dielectric";
-import { formatConductivity, formatFrequency } from "@/lib/format/units";
+import { formatConductivity, formatFrequency } from "@/lib/units/format";
 import type { ProtocolContent } from "@/lib/protocols/content";
 import { spectraBody, toSeries } from "@/lib/wizard/spectra-request";
 

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { formatDateTime } from "@/lib/format/time";
-import { formatConductivity, formatFrequency } from "@/lib/format/units";
+import { formatConductivity, formatFrequency } from "@/lib/units/format";
 import type { QueueItem } from "@/lib/protocols/queries";
 
 /**

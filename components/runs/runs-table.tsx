@@ -1,5 +1,6 @@
-import { frequencyText, microSiemensPerCm, percentText, utcText } from "@/lib/bench-sheet/format";
-import { sizeText } from "@/lib/runs/attachments";
+import { formatFlow, formatFrequency, formatMeterConductivity, formatPercentFixed, formatTemperature, formatVpp } from "@/lib/units/format";
+import { formatUtcMinute } from "@/lib/format/time";
+import { formatFileSize } from "@/lib/units/size";
 import type { BenchRun } from "@/lib/runs/repo";
 
 /** The runs of one version, newest first, with the conductivity flag in words (not colour alone) and attachments. */
@@ -13,30 +14,30 @@ export function RunsTable({ runs }: { runs: BenchRun[] }) {
       <tbody>
         {runs.map((r) => (
           <tr key={r.id} data-testid={`run-${r.id}`}>
-            <td>{utcText(r.createdAt)}<span className="block text-xs text-ink-muted">{r.technicianName}</span></td>
+            <td>{formatUtcMinute(r.createdAt)}<span className="block text-xs text-ink-muted">{r.technicianName}</span></td>
             <td>{r.bufferLot}</td>
             <td>
-              {microSiemensPerCm(r.measuredConductivity)} at {r.measuredAtC} °C
-              <span className="block text-xs text-ink-muted">= {microSiemensPerCm(r.conductivity25)} at 25 °C</span>
+              {formatMeterConductivity(r.measuredConductivity)} at {formatTemperature(r.measuredAtC)}
+              <span className="block text-xs text-ink-muted">= {formatMeterConductivity(r.conductivity25)} at 25 °C</span>
               {r.conductivityAccepted ? (
                 <span className="pill border-moss/40 bg-moss-light text-moss-dark">within range</span>
               ) : (
                 <span className="pill border-danger/40 bg-danger-light text-danger" data-testid="out-of-range">
-                  OUT OF RANGE: accepted {microSiemensPerCm(r.targetConductivity25 * (1 - r.tolerance))} to {microSiemensPerCm(r.targetConductivity25 * (1 + r.tolerance))}
+                  OUT OF RANGE: accepted {formatMeterConductivity(r.targetConductivity25 * (1 - r.tolerance))} to {formatMeterConductivity(r.targetConductivity25 * (1 + r.tolerance))}
                 </span>
               )}
             </td>
-            <td>{frequencyText(r.frequencyHz)}, {r.voltageVpp} Vpp<span className="block text-xs text-ink-muted">{r.operatingTemperatureC} °C{r.flowRateUlPerMin === null ? "" : `, ${r.flowRateUlPerMin} µL/min`}</span></td>
+            <td>{formatFrequency(r.frequencyHz, 4)}, {formatVpp(r.voltageVpp)}<span className="block text-xs text-ink-muted">{formatTemperature(r.operatingTemperatureC)}{r.flowRateUlPerMin === null ? "" : `, ${formatFlow(r.flowRateUlPerMin)}`}</span></td>
             <td>
-              {r.observedRecovery === null ? "—" : `recovery ${percentText(r.observedRecovery)}`}
-              <span className="block">{r.observedPurity === null ? "" : `purity ${percentText(r.observedPurity)}`}</span>
+              {r.observedRecovery === null ? "—" : `recovery ${formatPercentFixed(r.observedRecovery)}`}
+              <span className="block">{r.observedPurity === null ? "" : `purity ${formatPercentFixed(r.observedPurity)}`}</span>
               {r.countingMethod && <span className="block text-xs text-ink-muted">{r.countingMethod}</span>}
             </td>
             <td className="max-w-xs">
               {r.deviations && <p><span className="font-medium">Deviations:</span> {r.deviations}</p>}
               {r.notes && <p>{r.notes}</p>}
               {r.attachments.map((a) => (
-                <a key={a.id} className="block text-sm" href={`/api/v1/runs/attachments/${a.id}`}>{a.fileName} ({a.mimeType}, {sizeText(a.sizeBytes)})</a>
+                <a key={a.id} className="block text-sm" href={`/api/v1/runs/attachments/${a.id}`}>{a.fileName} ({a.mimeType}, {formatFileSize(a.sizeBytes)})</a>
               ))}
             </td>
           </tr>

@@ -4,6 +4,7 @@
  */
 import { ENGINE_VERSION } from "@/lib/dielectric";
 import { readJson } from "@/lib/http/body";
+import { serverTimingDuration } from "@/lib/units/duration";
 
 /** Header carrying the engine version that produced a result (also in the OpenAPI document). */
 export const ENGINE_VERSION_HEADER = "x-engine-version";
@@ -35,7 +36,7 @@ export async function computeEncoded<T>(req: Request, compute: (body: unknown) =
       "content-type": contentType,
       vary: "accept",
       [ENGINE_VERSION_HEADER]: ENGINE_VERSION,
-      "server-timing": `read;dur=${(t1 - t0).toFixed(2)}, compute;dur=${(t2 - t1).toFixed(2)}, serialize;dur=${(t3 - t2).toFixed(2)}`,
+      "server-timing": `read;dur=${serverTimingDuration(t1 - t0)}, compute;dur=${serverTimingDuration(t2 - t1)}, serialize;dur=${serverTimingDuration(t3 - t2)}`,
     },
   });
 }
@@ -49,7 +50,7 @@ export function withServerTiming<C>(handler: (req: Request, ctx: C) => Promise<R
   return async (req: Request, ctx: C): Promise<Response> => {
     const started = performance.now();
     const res = await handler(req, ctx);
-    res.headers.append("server-timing", `app;dur=${(performance.now() - started).toFixed(2)}`);
+    res.headers.append("server-timing", `app;dur=${serverTimingDuration(performance.now() - started)}`);
     return res;
   };
 }

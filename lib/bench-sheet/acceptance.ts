@@ -1,13 +1,12 @@
 import { InputError } from "@/lib/errors";
+import { conductivityAt25, conductivityAtTemperature } from "@/lib/units/conductivity-temperature";
+import { formatTemperature } from "@/lib/units/format";
 
 /**
  * Acceptance arithmetic for a measured buffer conductivity. Meters read at the solution's temperature; the protocol
  * states its target at 25 °C. Linear compensation σ(t) = σ25 · (1 + a · (t − 25)) with a = 0.02 /K, the usual
- * coefficient for dilute salts (common practice, no single source). SI: S/m, °C.
+ * coefficient for dilute salts (lib/units/conductivity-temperature, common practice). SI: S/m, °C.
  */
-
-/** Linear temperature coefficient of conductivity, 1/K (common practice for dilute salts). */
-export const TEMPERATURE_COEFFICIENT = 0.02;
 
 /** Temperatures accepted for a conductivity reading, °C (outside this the linear rule is not trusted). */
 export const READING_TEMPERATURE_LIMITS = { min: 5, max: 45 } as const;
@@ -23,7 +22,7 @@ function checkTemperature(t: number): void {
     throw new InputError([
       {
         path: "temperature",
-        message: `Temperature: ${String(t)} °C is outside ${READING_TEMPERATURE_LIMITS.min}–${READING_TEMPERATURE_LIMITS.max} °C, where the 2 %/K compensation is used.`,
+        message: `Temperature: ${Number.isFinite(t) ? formatTemperature(t, 4) : String(t)} is outside ${READING_TEMPERATURE_LIMITS.min}–${READING_TEMPERATURE_LIMITS.max} °C, where the 2 %/K compensation is used.`,
       },
     ]);
   }
@@ -35,7 +34,7 @@ function checkTemperature(t: number): void {
  */
 export function conductivityAt(sigma25: number, temperatureC: number): number {
   checkTemperature(temperatureC);
-  return sigma25 * (1 + TEMPERATURE_COEFFICIENT * (temperatureC - 25));
+  return conductivityAtTemperature(sigma25, temperatureC);
 }
 
 /**
@@ -44,7 +43,7 @@ export function conductivityAt(sigma25: number, temperatureC: number): number {
  */
 export function compensateTo25(measured: number, temperatureC: number): number {
   checkTemperature(temperatureC);
-  return measured / (1 + TEMPERATURE_COEFFICIENT * (temperatureC - 25));
+  return conductivityAt25(measured, temperatureC);
 }
 
 /**

@@ -3,6 +3,7 @@
  * sheet never calls a plan "static"; a capture plan also states the local flow its trapped cells must withstand.
  */
 import type { WindowsResult } from "@/lib/planner";
+import { formatFlow, formatLength, formatTemperatureRise, formatVelocity } from "@/lib/units/format";
 
 type SavedResult = Partial<Pick<WindowsResult, "model" | "windows">> | null | undefined;
 
@@ -16,9 +17,9 @@ export function flowText(flowRateUlPerMin: number | null, result: unknown): stri
   if (flowRateUlPerMin === null) {
     return "not set in this plan (the drive was sized for a DEP speed, not a flow rate); this sort design moves cells with a flow, so set a steady flow by your device's procedure before switching on the field";
   }
-  const base = `${Number(flowRateUlPerMin.toPrecision(3))} µL/min`;
+  const base = formatFlow(flowRateUlPerMin);
   if (!holding) return base;
-  return `${base}; trapped cells must withstand the local flow of ≈ ${Number((holding.localFlowSpeed * 1e6).toPrecision(3))} µm/s at ${Number((holding.height * 1e6).toPrecision(3))} µm above the electrodes (parabolic profile, model)`;
+  return `${base}; trapped cells must withstand the local flow of ≈ ${formatVelocity(holding.localFlowSpeed)} at ${formatLength(holding.height)} above the electrodes (parabolic profile, model)`;
 }
 
 /**
@@ -28,7 +29,7 @@ export function flowText(flowRateUlPerMin: number | null, result: unknown): stri
 export function heatingText(deltaT: number, rank: number, result: unknown): string {
   const w = (result as SavedResult)?.windows?.find((x) => x.rank === rank);
   const h = w?.heating;
-  const k = (x: number) => `+${Number(x.toPrecision(2))} K`;
+  const k = (x: number) => `+${formatTemperatureRise(x, 2)}`;
   if (!h || h.array === null) return `${k(deltaT)} at the electrodes (Joule, isolated-pair model estimate)`;
   return `${k(h.array)} over the electrode array (array estimate; isolated pair ${k(h.isolatedPair)}) — order-of-magnitude model estimates`;
 }

@@ -10,18 +10,23 @@ import {
   type SectionId,
 } from "@/templates/bench-sheet/layout";
 import { acceptanceRange25, readingRangeAt, READING_TEMPERATURE_LIMITS } from "./acceptance";
+import { formatUtcMinute } from "@/lib/format/time";
 import {
-  celsiusText,
-  cellsPerMlText,
-  conductivityText,
-  frequencyText,
-  gramsText,
-  microSiemensPerCm,
-  millilitresText,
-  percentText,
-  utcText,
-  voltsText,
-} from "./format";
+  formatCellDensity,
+  formatFrequency,
+  formatGrams,
+  formatMeterConductivity,
+  formatMillilitres,
+  formatOsmolality,
+  formatPercent,
+  formatPercentFixed,
+  formatPlain,
+  formatSI,
+  formatTemperature,
+  formatVpp,
+  formatVrms,
+} from "@/lib/units/format";
+import { toSI } from "@/lib/units/lab";
 import { flowText, heatingText } from "./flow";
 import { scaleRecipe } from "./recipe";
 import { STATE_WORDS, type BenchSheetLayout, type BenchSheetOptions, type BenchSheetSource, type SheetBlock, type SheetSection } from "./types";
@@ -58,10 +63,10 @@ function statusSection(source: BenchSheetSource, options: BenchSheetOptions, rea
     kind: "fields",
     rows: [
       { label: "State", value: ready ? `${state}, current: signed for bench use` : state },
-      { label: "Signatures", value: signatures.length === 0 ? "none" : signatures.map((s) => `${s.signerName}, ${s.meaning}, ${utcText(s.signedAt)}`).join("; ") },
+      { label: "Signatures", value: signatures.length === 0 ? "none" : signatures.map((s) => `${s.signerName}, ${s.meaning}, ${formatUtcMinute(s.signedAt)}`).join("; ") },
       options.issued
-        ? { label: "Issued", value: `stored copy of the version approved ${utcText(options.printedAt)} (every download is this same file), buffer volume ${options.volumeMl} mL` }
-        : { label: "Printed", value: `${utcText(options.printedAt)}${options.printedBy ? ` by ${options.printedBy}` : ""}, buffer volume ${options.volumeMl} mL` },
+        ? { label: "Issued", value: `stored copy of the version approved ${formatUtcMinute(options.printedAt)} (every download is this same file), buffer volume ${options.volumeMl} mL` }
+        : { label: "Printed", value: `${formatUtcMinute(options.printedAt)}${options.printedBy ? ` by ${options.printedBy}` : ""}, buffer volume ${options.volumeMl} mL` },
     ],
   });
   return blocks;
@@ -78,14 +83,14 @@ function bufferSection(source: BenchSheetSource, options: BenchSheetOptions): Sh
   const scaled = scaleRecipe(recipe, options.volumeMl);
   const vol = `${options.volumeMl} mL`;
   const rows: string[][] = [];
-  if (recipe.sucrosePercentWV > 0) rows.push(["Sucrose (solid)", `${recipe.sucrosePercentWV} % w/v = ${recipe.sucrosePercentWV * 10} g/L`, gramsText(scaled.sucroseG)]);
-  if (recipe.glucosePercentWV > 0) rows.push(["Glucose (solid)", `${recipe.glucosePercentWV} % w/v = ${recipe.glucosePercentWV * 10} g/L`, gramsText(scaled.glucoseG)]);
+  if (recipe.sucrosePercentWV > 0) rows.push(["Sucrose (solid)", `${recipe.sucrosePercentWV} % w/v = ${recipe.sucrosePercentWV * 10} g/L`, formatGrams(scaled.sucroseG)]);
+  if (recipe.glucosePercentWV > 0) rows.push(["Glucose (solid)", `${recipe.glucosePercentWV} % w/v = ${recipe.glucosePercentWV * 10} g/L`, formatGrams(scaled.glucoseG)]);
   recipe.additions.forEach((addition, i) => {
     const item = scaled.items[i];
     rows.push([
       `${item.label} (${item.kind === "solid" ? "solid" : "stock solution"})`,
       item.kind === "solid" ? `${addition.perLitre} g/L` : `${addition.perLitre} mL/L`,
-      item.kind === "solid" ? gramsText(item.amount) : millilitresText(item.amount),
+      item.kind === "solid" ? formatGrams(item.amount) : formatMillilitres(item.amount),
     ]);
   });
   rows.push(["Deionised water", "to 1000 mL", `to ${vol} final volume`]);
@@ -104,7 +109,7 @@ function bufferSection(source: BenchSheetSource, options: BenchSheetOptions): Sh
     {
       kind: "paragraph",
       style: "note",
-      text: `Predicted for this recipe (model): ${conductivityText(recipe.conductivity25)} at 25 °C, ${Math.round(recipe.osmolality)} mOsm/kg.`,
+      text: `Predicted for this recipe (model): ${formatMeterConductivity(recipe.conductivity25, { withSI: true })} at 25 °C, ${formatOsmolality(toSI("mOsm_kg", recipe.osmolality))}.`,
     },
   ];
 }
@@ -120,20 +125,20 @@ function acceptanceSection(source: BenchSheetSource): SheetBlock[] {
   temps.sort((a, b) => a - b);
   const rows = temps.map((t) => {
     const r = readingRangeAt(target, tol, t);
-    return [celsiusText(t) + (t === op ? " (operating)" : ""), microSiemensPerCm(r.low), microSiemensPerCm(r.high)];
+    return [formatTemperature(t) + (t === op ? " (operating)" : ""), formatMeterConductivity(r.low), formatMeterConductivity(r.high)];
   });
   const osmolality = buffer.osmolality ?? buffer.recipe?.osmolality ?? null;
   return [
     {
       kind: "fields",
       rows: [
-        { label: "Target at 25 °C", value: `${conductivityText(target)} ± ${Math.round(tol * 100)} %` },
-        { label: "Accept at 25 °C", value: `${microSiemensPerCm(r25.low)} to ${microSiemensPerCm(r25.high)}` },
+        { label: "Target at 25 °C", value: `${formatMeterConductivity(target, { withSI: true })} ± ${formatPercent(tol, 2)}` },
+        { label: "Accept at 25 °C", value: `${formatMeterConductivity(r25.low)} to ${formatMeterConductivity(r25.high)}` },
         {
           label: "Osmolality",
           value: osmolality === null
             ? `not stated in this version; if measured, accept ${OSMOLALITY_ACCEPT.min}–${OSMOLALITY_ACCEPT.max} mOsm/kg`
-            : `${Math.round(osmolality)} mOsm/kg planned; if measured, accept ${OSMOLALITY_ACCEPT.min}–${OSMOLALITY_ACCEPT.max} mOsm/kg (usual band for mammalian cells, common practice)`,
+            : `${formatOsmolality(toSI("mOsm_kg", osmolality))} planned; if measured, accept ${OSMOLALITY_ACCEPT.min}–${OSMOLALITY_ACCEPT.max} mOsm/kg (usual band for mammalian cells, common practice)`,
         },
       ],
     },
@@ -161,7 +166,7 @@ function cellsSection(source: BenchSheetSource): SheetBlock[] {
     cellPrep.washes > 0
       ? `Wash the cells ${cellPrep.washes} time${cellPrep.washes === 1 ? "" : "s"} in the buffer of section 1: pellet gently, remove the supernatant, resuspend in fresh buffer.`
       : "No wash is specified: transfer the cells into the buffer of section 1 as your method prescribes.",
-    `Resuspend at ${cellsPerMlText(cellPrep.resuspensionCellsPerMl)}; count before loading.`,
+    `Resuspend at ${formatCellDensity(cellPrep.resuspensionCellsPerMl)}; count before loading.`,
     `Start a timer when the cells first meet the low-conductivity buffer. Use them within ${buffer.maxMinutesInBuffer} minutes; after that, discard them and prepare fresh cells.`,
   ];
   const blocks: SheetBlock[] = [
@@ -169,7 +174,7 @@ function cellsSection(source: BenchSheetSource): SheetBlock[] {
       kind: "fields",
       rows: [
         { label: "Sample", value: `${populations.target.name} (target) with ${populations.other.name}` },
-        { label: "Planned input mix", value: `${percentText(inputMix.targetFraction)} target cells` },
+        { label: "Planned input mix", value: `${formatPercentFixed(inputMix.targetFraction)} target cells` },
       ],
     },
     { kind: "steps", items: steps },
@@ -184,13 +189,13 @@ function settingsSection(source: BenchSheetSource): SheetBlock[] {
     {
       kind: "fields",
       rows: [
-        { label: "Frequency", value: `${frequencyText(selection.frequency)} (operating window ${frequencyText(selection.band.low)} to ${frequencyText(selection.band.high)})` },
-        { label: "Amplitude", value: `${voltsText(selection.voltageVpp, "Vpp")} = ${voltsText(selection.voltageVrms, "Vrms")}` },
+        { label: "Frequency", value: `${formatFrequency(selection.frequency, 4)} (operating window ${formatFrequency(selection.band.low, 4)} to ${formatFrequency(selection.band.high, 4)})` },
+        { label: "Amplitude", value: `${formatVpp(selection.voltageVpp)} = ${formatVrms(selection.voltageVrms)}` },
         { label: "Waveform", value: selection.waveform === "sine" ? "Sine" : selection.waveform },
         { label: "Flow rate", value: flowText(selection.flowRateUlPerMin, source.content.plan.result) },
-        { label: "Operating temperature", value: celsiusText(selection.temperatureC) },
-        { label: "Medium conductivity", value: `${conductivityText(selection.conductivity)} as planned` },
-        { label: "Device", value: `${device.name ?? device.geometry} (${device.geometry}); never exceed ${voltsText(device.maxVoltageVpp, "Vpp")}` },
+        { label: "Operating temperature", value: formatTemperature(selection.temperatureC) },
+        { label: "Medium conductivity", value: `${formatMeterConductivity(selection.conductivity, { withSI: true })} as planned` },
+        { label: "Device", value: `${device.name ?? device.geometry} (${device.geometry}); never exceed ${formatVpp(device.maxVoltageVpp)}` },
         { label: "Sort design", value: sortDesign },
         { label: "Predicted heating", value: heatingText(selection.predicted.deltaT, selection.rank, source.content.plan.result) },
       ],
@@ -205,14 +210,14 @@ function populationsSection(source: BenchSheetSource): SheetBlock[] {
       kind: "table",
       columns: [{ title: "Population", width: 0.26 }, { title: "Role", width: 0.16 }, { title: "Re[K]", width: 0.12 }, { title: "Expected behaviour", width: 0.46 }],
       rows: [
-        [populations.target.name, "target", selection.reK.target.toFixed(2), selection.behaviour.target],
-        [populations.other.name, "other", selection.reK.other.toFixed(2), selection.behaviour.other],
+        [populations.target.name, "target", formatPlain(selection.reK.target, 2), selection.behaviour.target],
+        [populations.other.name, "other", formatPlain(selection.reK.other, 2), selection.behaviour.other],
       ],
     },
     {
       kind: "paragraph",
       style: "note",
-      text: `Model prediction (engine ${plan.engineVersion}, seed ${plan.seed}) for an input mix of ${percentText(inputMix.targetFraction)} target cells: recovery ${percentText(selection.predicted.recovery)}, purity ${percentText(selection.predicted.purity)}. Verify on the bench and record what you observe.`,
+      text: `Model prediction (engine ${plan.engineVersion}, seed ${plan.seed}) for an input mix of ${formatPercentFixed(inputMix.targetFraction)} target cells: recovery ${formatPercentFixed(selection.predicted.recovery)}, purity ${formatPercentFixed(selection.predicted.purity)}. Verify on the bench and record what you observe.`,
     },
   ];
 }
@@ -224,7 +229,7 @@ function warningsSection(source: BenchSheetSource): SheetBlock[] {
     {
       kind: "bullets",
       items: warnings.map((w) => {
-        const amount = (v: number) => (w.unit === "Hz" ? frequencyText(v) : `${Number(v.toPrecision(3))}${w.unit ? ` ${w.unit}` : ""}`);
+        const amount = (v: number) => formatSI(v, w.unit);
         const limit = w.limit === null || w.limit === undefined ? "" : `; limit ${amount(w.limit)}`;
         const value = w.value === null || w.value === undefined ? "" : ` (${amount(w.value)}${limit})`;
         return `${w.severity.toUpperCase()}: ${w.message}${value}${w.advice ? ` ${w.advice}` : ""}`;
@@ -236,7 +241,7 @@ function warningsSection(source: BenchSheetSource): SheetBlock[] {
 function footer(source: BenchSheetSource): BenchSheetLayout["footer"] {
   const signatureLines = source.signatures.length === 0
     ? ["Not signed: this version carries no signature."]
-    : source.signatures.map((s) => `Signed by ${s.signerName} (${roleWord(s.signerRole)}), "${s.meaning}", ${utcText(s.signedAt)}${s.contentHash === source.version.contentHash ? "" : " (signed a different content hash)"}`);
+    : source.signatures.map((s) => `Signed by ${s.signerName} (${roleWord(s.signerRole)}), "${s.meaning}", ${formatUtcMinute(s.signedAt)}${s.contentHash === source.version.contentHash ? "" : " (signed a different content hash)"}`);
   return { signatureLines, hashLine: `Content SHA-256 ${source.version.contentHash}` };
 }
 

@@ -2,7 +2,8 @@
  * The sweep map as a standalone SVG document (for download): one rectangle per grid cell on the diverging scale,
  * decade ticks on both log axes, the crossover branches, and each window's band and region. Pure: builds text.
  */
-import { decadeTicks, formatConductivity, formatFrequency } from "./format";
+import { decadeTicks } from "@/lib/charts/ticks";
+import { formatConductivity, formatFrequency } from "@/lib/units/format";
 import { divergingHex } from "./diverging-scale";
 
 /** What the SVG shows; row-major values (index i·nf + j is conductivity i, frequency j). */
@@ -42,7 +43,7 @@ export function heatmapSvg(d: HeatmapSvgData): string {
   }
   parts.push(`<rect x="${L}" y="${T}" width="${W - L - R}" height="${H - T - B}" fill="none" stroke="#1f2933"/>`);
   for (const t of decadeTicks(f[0], f[f.length - 1])) parts.push(`<text x="${n(lx(t))}" y="${H - B + 16}" text-anchor="middle" fill="#3e4c59">${esc(formatFrequency(t, 2))}</text>`);
-  for (const t of decadeTicks(cMin, cMax)) parts.push(`<text x="${L - 6}" y="${n(ly(t) + 4)}" text-anchor="end" fill="#3e4c59">${esc(formatConductivity(t, 2))}</text>`);
+  for (const t of decadeTicks(cMin, cMax)) parts.push(`<text x="${L - 6}" y="${n(ly(t) + 4)}" text-anchor="end" fill="#3e4c59">${esc(formatConductivity(t, { digits: 2 }))}</text>`);
   parts.push(`<text x="${L + (W - L - R) / 2}" y="${H - 12}" text-anchor="middle">Frequency (log scale)</text>`);
   parts.push(`<text transform="translate(16 ${T + (H - T - B) / 2}) rotate(-90)" text-anchor="middle">Medium conductivity (log scale)</text>`);
   for (const x of d.crossovers) {

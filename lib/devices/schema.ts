@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { describeValue } from "@/lib/dielectric";
 import { siNumber } from "@/lib/units/quantity-field";
+import { formatFrequency } from "@/lib/units/format";
 import { DEVICE_FIELDS as F } from "./fields";
 
 /**
@@ -29,7 +30,7 @@ const userGamma = z.strictObject({
  */
 export function frequencyRangeIssue(g: { minFrequency?: number; maxFrequency?: number }): string | null {
   if (g.minFrequency === undefined || g.maxFrequency === undefined || g.maxFrequency > g.minFrequency) return null;
-  return `the highest generator frequency (${g.maxFrequency} Hz) must be above the lowest (${g.minFrequency} Hz)`;
+  return `the highest generator frequency (${formatFrequency(g.maxFrequency, 6)}) must be above the lowest (${formatFrequency(g.minFrequency, 6)})`;
 }
 
 /**

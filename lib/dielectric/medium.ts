@@ -4,6 +4,7 @@
  */
 import { requireRange } from "./guards";
 import { KELVIN_OFFSET } from "./units";
+import { conductivityAt25 as correctFrom, conductivityAtTemperature as correctTo, CONDUCTIVITY_TEMPERATURE_COEFFICIENT } from "@/lib/units/conductivity-temperature";
 
 /** Temperatures (°C) over which the water fits are used; outside, the functions throw. */
 export const WATER_TEMPERATURE_RANGE = { min: 0, max: 60 } as const;
@@ -44,8 +45,8 @@ export function waterThermalConductivity(temperatureC: number): number {
   return 0.6065 * (1 + 2.756e-3 * d - 1.092e-5 * d * d);
 }
 
-/** Usual linear temperature coefficient of conductivity for dilute salts, 1/K (common practice). */
-export const DEFAULT_CONDUCTIVITY_TEMPERATURE_COEFFICIENT = 0.02;
+/** Usual linear temperature coefficient of conductivity for dilute salts, 1/K (common practice; lib/units). */
+export const DEFAULT_CONDUCTIVITY_TEMPERATURE_COEFFICIENT = CONDUCTIVITY_TEMPERATURE_COEFFICIENT;
 
 /**
  * Conductivity at t °C from its value at 25 °C: σ(t) = σ25 (1 + a (t − 25)), a = 0.02 /K by default.
@@ -54,7 +55,7 @@ export const DEFAULT_CONDUCTIVITY_TEMPERATURE_COEFFICIENT = 0.02;
  */
 export function conductivityAtTemperature(conductivity25: number, temperatureC: number, coefficient = DEFAULT_CONDUCTIVITY_TEMPERATURE_COEFFICIENT): number {
   checkT(temperatureC);
-  return conductivity25 * (1 + coefficient * (temperatureC - 25));
+  return correctTo(conductivity25, temperatureC, coefficient);
 }
 
 /**
@@ -64,5 +65,5 @@ export function conductivityAtTemperature(conductivity25: number, temperatureC: 
  */
 export function conductivityAt25(conductivity: number, temperatureC: number, coefficient = DEFAULT_CONDUCTIVITY_TEMPERATURE_COEFFICIENT): number {
   checkT(temperatureC);
-  return conductivity / (1 + coefficient * (temperatureC - 25));
+  return correctFrom(conductivity, temperatureC, coefficient);
 }

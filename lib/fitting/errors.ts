@@ -1,4 +1,5 @@
 import { InputError, TooLargeError, type FieldIssue } from "@/lib/errors";
+import { formatFileSize } from "@/lib/units/size";
 
 /**
  * Points or options handed to `fitMembrane` that cannot be fitted (non-finite or non-positive
@@ -30,15 +31,10 @@ export class CsvTooLargeError extends TooLargeError {
     readonly maxBytes: number,
   ) {
     super(
-      `The file is ${formatBytes(sizeBytes)}; crossover files are limited to ${formatBytes(maxBytes)}. ` +
+      `The file is ${formatFileSize(sizeBytes, { exact: true })}; crossover files are limited to ${formatFileSize(maxBytes, { exact: true })}. ` +
         "A crossover data set is usually a few dozen rows; split or trim the file.",
     );
     this.name = "CsvTooLargeError";
   }
 }
 
-function formatBytes(n: number): string {
-  if (n >= 1024 * 1024) return `${(n / (1024 * 1024)).toFixed(2)} MiB (${n} bytes)`;
-  if (n >= 1024) return `${(n / 1024).toFixed(1)} KiB (${n} bytes)`;
-  return `${n} bytes`;
-}

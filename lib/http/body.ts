@@ -4,23 +4,15 @@
  * Nothing over the cap is ever held in memory. Over the cap → TooLargeError (413) with the limit in words.
  */
 import { InputError, TooLargeError } from "@/lib/errors";
+import { formatFileSize } from "@/lib/units/size";
 
 /** Largest JSON body the API reads by default: 2 MiB. */
 export const MAX_JSON_BYTES = 2 * 1024 * 1024;
 
-/**
- * A byte count in words, in MiB above 1 MiB and in KiB above 1 KiB.
- * @example describeBytes(2 * 1024 * 1024) // "2 MiB"
- */
-export function describeBytes(n: number): string {
-  if (n >= 1024 * 1024) return `${+(n / 1024 / 1024).toFixed(1)} MiB`;
-  if (n >= 1024) return `${+(n / 1024).toFixed(1)} KiB`;
-  return `${n} bytes`;
-}
 
 function tooLarge(maxBytes: number, what: string, declared?: number): TooLargeError {
-  const size = declared === undefined ? "over" : `${describeBytes(declared)}; that is over`;
-  return new TooLargeError(`The ${what} is ${size} the limit of ${describeBytes(maxBytes)} (${maxBytes} bytes); nothing was read or stored.`);
+  const size = declared === undefined ? "over" : `${formatFileSize(declared)}; that is over`;
+  return new TooLargeError(`The ${what} is ${size} the limit of ${formatFileSize(maxBytes)} (${maxBytes} bytes); nothing was read or stored.`);
 }
 
 /**

@@ -1,3 +1,5 @@
+import { serverTimingDuration } from "@/lib/units/duration";
+
 /**
  * Server-Timing for route handlers: time named steps of one request and send them as the `server-timing` header
  * (browsers' developer tools and `npm run load` read it). Durations in milliseconds.
@@ -24,6 +26,6 @@ export class ServerTiming {
    * @example timing.header() // "db;dur=4.1, sheet;dur=2.9, app;dur=7.6"
    */
   header(): string {
-    return [...this.steps, ["app", performance.now() - this.start] as [string, number]].map(([n, d]) => `${n};dur=${d.toFixed(1)}`).join(", ");
+    return [...this.steps, ["app", performance.now() - this.start] as [string, number]].map(([n, d]) => `${n};dur=${serverTimingDuration(d, 1)}`).join(", ");
   }
 }

@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { fromSI, tidy, toSI } from "@/lib/units/lab";
+import { fromSI, toSI } from "@/lib/units/lab";
+import { tidy } from "@/lib/units/number";
 import { labNumber, percentCv } from "@/lib/units/lab-fields";
 import { DISTRIBUTIONS, fieldsOf, POPULATION_FIELDS, setValueAt, SHELL_MODELS, valueAt, type Distribution, type PopulationField, type ShellModel } from "./fields";
 import { populationSpecSchema, type PopulationSpec, type SpreadParam } from "./spec";

@@ -2,7 +2,7 @@ import { canonicalJson } from "./hash";
 import type { ProtocolContent } from "./content";
 import { describePath, flatten } from "./fields";
 import { rankedWindows, type RankedWindow } from "./windows";
-import type { UnitKind } from "@/lib/format/units";
+import { UnitKind } from "@/lib/units/format";
 
 /** Differences between two protocol contents, for the reviewer's side-by-side view (pure). */
 

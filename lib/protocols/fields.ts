@@ -1,4 +1,4 @@
-import type { UnitKind } from "@/lib/format/units";
+import { UnitKind } from "@/lib/units/format";
 
 /** Names and units of the leaf fields of a protocol content, for read-only display and for the diff. */
 
@@ -21,7 +21,7 @@ const WORDS: Record<string, string> = {
   maxTemperatureRiseK: "largest temperature rise", maxElectrothermalRatio: "largest electrothermal/DEP speed ratio",
   maxTransmembranePotentialV: "largest induced transmembrane potential", separationMarginReK: "separation margin on Re[K]",
   slowCellShare: "slow-cell share sized for", minRecovery: "lowest acceptable recovery", minPurity: "lowest acceptable purity",
-  osmolalityMinOsmolPerKg: "lowest osmolality (osmol/kg)", osmolalityMaxOsmolPerKg: "highest osmolality (osmol/kg)",
+  osmolalityMinOsmolPerKg: "lowest osmolality", osmolalityMaxOsmolPerKg: "highest osmolality",
 };
 
 const UNIT_BY_KEY: Record<string, UnitKind> = {
@@ -29,8 +29,8 @@ const UNIT_BY_KEY: Record<string, UnitKind> = {
   conductivity25: "conductivity", targetConductivity25: "conductivity", permittivity: "relative", cv: "percent", tolerance: "percent",
   targetFraction: "percent", radiusFraction: "percent", frequency: "frequency", low: "frequency", high: "frequency",
   voltageVpp: "vpp", maxVoltageVpp: "vpp", voltageVrms: "vrms", flowRateUlPerMin: "flow", temperatureC: "celsius",
-  deltaT: "kelvin", recovery: "percent", purity: "percent", osmolality: "osmolality", resuspensionCellsPerMl: "density",
-  maxMinutesInBuffer: "minutes", gradientFactor: "gradient", width: "length", gap: "length", height: "length",
+  deltaT: "kelvin", recovery: "percent", purity: "percent", osmolality: "osmolalityMilli", resuspensionCellsPerMl: "density",
+  maxMinutesInBuffer: "minutes", osmolalityMinOsmolPerKg: "osmolality", osmolalityMaxOsmolPerKg: "osmolality", maxElectrothermalRatio: "plain", separationMarginReK: "plain", gradientFactor: "gradient", width: "length", gap: "length", height: "length",
   deltaTMaxK: "kelvin", transmembraneMaxV: "volts", electrodeWidth: "length", electrodeGap: "length", channelHeight: "length",
   maxTemperatureRiseK: "kelvin", maxTransmembranePotentialV: "volts", slowCellShare: "percent", minRecovery: "percent", minPurity: "percent",
 };

@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
 import { formatDateTime } from "@/lib/format/time";
-import { formatConductivity, formatFrequency, formatVpp } from "@/lib/format/units";
+import { formatConductivity, formatFrequency, formatVpp } from "@/lib/units/format";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { listActiveUsersByRole, findUserById } from "@/lib/users/repo";
 import type { Protocol, ProtocolVersion } from "./mapper";

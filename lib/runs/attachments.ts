@@ -2,6 +2,7 @@ import { createHash } from "node:crypto";
 import Papa from "papaparse";
 import { InputError, type FieldIssue } from "@/lib/errors";
 import { deleteQuietly, newObjectKey, putObject, type StoredObject } from "@/lib/storage";
+import { formatFileSize } from "@/lib/units/size";
 
 /** A file as received from the form or the API: its name and bytes. */
 export interface UploadFile {
@@ -57,16 +58,6 @@ export function detectType(bytes: Uint8Array): Pick<CheckedFile, "mimeType" | "e
 }
 
 /**
- * A file size in words (MB and kB of 1024).
- * @example sizeText(10485760) // "10.0 MB"; sizeText(4096) // "4.0 kB"; sizeText(12) // "12 bytes"
- */
-export function sizeText(bytes: number): string {
-  if (bytes >= 1024 * 1024) return `${(bytes / 1024 / 1024).toFixed(1)} MB`;
-  if (bytes >= 1024) return `${(bytes / 1024).toFixed(1)} kB`;
-  return `${bytes} bytes`;
-}
-
-/**
  * Checks every file (count, empty, size, type by content); throws one InputError listing each problem, so nothing is
  * stored when any file is refused.
  * @example const ok = checkFiles([{ name: "gate.png", bytes }]);
@@ -83,7 +74,7 @@ export function checkFiles(files: UploadFile[]): CheckedFile[] {
       continue;
     }
     if (f.bytes.length > limit) {
-      issues.push({ path: "attachments", message: `${name} is ${sizeText(f.bytes.length)}; the limit is ${sizeText(limit)} per file.` });
+      issues.push({ path: "attachments", message: `${name} is ${formatFileSize(f.bytes.length)}; the limit is ${formatFileSize(limit)} per file.` });
       continue;
     }
     const type = detectType(f.bytes);

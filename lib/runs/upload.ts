@@ -1,5 +1,6 @@
 import { InputError } from "@/lib/errors";
-import { describeBytes, readCappedFormData } from "@/lib/http/body";
+import { readCappedFormData } from "@/lib/http/body";
+import { formatFileSize } from "@/lib/units/size";
 import { MAX_ATTACHMENTS, maxUploadBytes, type UploadFile } from "./attachments";
 
 /**
@@ -9,7 +10,7 @@ import { MAX_ATTACHMENTS, maxUploadBytes, type UploadFile } from "./attachments"
  */
 export async function readRunSubmission(req: Request): Promise<{ run: unknown; files: UploadFile[] }> {
   const cap = MAX_ATTACHMENTS * maxUploadBytes() + 1024 * 1024;
-  const form = await readCappedFormData(req, cap, `run upload (at most ${MAX_ATTACHMENTS} files of ${describeBytes(maxUploadBytes())} each)`);
+  const form = await readCappedFormData(req, cap, `run upload (at most ${MAX_ATTACHMENTS} files of ${formatFileSize(maxUploadBytes())} each)`);
   const rawRun = form.get("run");
   if (typeof rawRun !== "string") throw new InputError([{ path: "run", message: "The 'run' field (JSON of the run record) is missing." }]);
   let run: unknown;

@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { fromSI, LAB_UNITS, tidy, type UnitId } from "./lab";
+import { fromSI, LAB_UNITS, type UnitId } from "./lab";
+import { sig, tidy } from "./number";
 
 /**
  * Number fields of forms in lab units. A field's range is kept in SI (as the stored schema has it) and shown in the
@@ -16,10 +17,6 @@ export interface LabField {
   max: number;
 }
 
-function plain(v: number): string {
-  const a = Math.abs(v);
-  return a !== 0 && (a >= 1e6 || a < 1e-3) ? v.toExponential().replace("e+", "e") : String(v);
-}
 
 /**
  * The allowed range in the field's lab unit, tidied for display.
@@ -43,12 +40,12 @@ export function labelWithUnit(f: Pick<LabField, "label" | "unit">): string {
 /**
  * The range in words, in the field's lab unit.
  * @example rangeInWords({ label: "Radius", unit: "um", min: 1e-7, max: 1e-4 }) // "between 0.1 and 100 µm"
- * @example rangeInWords({ label: "G", unit: "S_m2", min: 0, max: 1e7 }) // "between 0 and 1e7 S/m²"
+ * @example rangeInWords({ label: "G", unit: "S_m2", min: 0, max: 1e7 }) // "between 0 and 1 × 10⁷ S/m²"
  */
 export function rangeInWords(f: LabField): string {
   const { min, max } = labRange(f);
   const symbol = LAB_UNITS[f.unit].symbol;
-  return `between ${plain(min)} and ${plain(max)}${symbol ? ` ${symbol}` : ""}`;
+  return `between ${sig(min, 6)} and ${sig(max, 6)}${symbol ? ` ${symbol}` : ""}`;
 }
 
 /** The message of a number outside its range (or not a number). @example outOfRangeMessage(radius) // "Cell radius (µm): enter a number between 0.1 and 100 µm." */

@@ -1,8 +1,13 @@
 /**
  * Lab units at the UI edge. The engine, the database and the JSON API are SI; screens show and accept the units a
  * bench scientist writes in a notebook. Every conversion goes through this table: `toSI(unit, value)` and
- * `fromSI(unit, value)`, with `UNITS_BY_QUANTITY` saying which units each quantity offers.
+ * `fromSI(unit, value)`, with `UNITS_BY_QUANTITY` saying which units each quantity offers. Number text comes from
+ * ./number (significant digits, powers of ten); one formatter per quantity kind is in ./format.
  */
+import { sig } from "./number";
+
+/** Re-exported for the wizard's forms until they import it from ./number. */
+export { tidy } from "./number";
 
 /** Physical quantities the screens show, each with one SI unit. */
 export type Quantity =
@@ -137,28 +142,6 @@ export function fromSI(unit: UnitId, value: number): number {
 }
 
 /**
- * Rounds a converted value to `digits` significant figures, cleaning float noise (1e-6 µm → 1, not 0.9999999).
- * @example tidy(0.30000000000000004) // 0.3
- */
-export function tidy(value: number, digits = 10): number {
-  if (!Number.isFinite(value) || value === 0) return value;
-  return Number(value.toPrecision(digits));
-}
-
-const SUPERSCRIPT: Record<string, string> = { "-": "⁻", "0": "⁰", "1": "¹", "2": "²", "3": "³", "4": "⁴", "5": "⁵", "6": "⁶", "7": "⁷", "8": "⁸", "9": "⁹" };
-
-/**
- * Scientific notation as a scientist writes it.
- * @example powerOfTen(6.6e13, 2) // "6.6 × 10¹³"
- */
-export function powerOfTen(v: number, digits = 4): string {
-  const [mantissa, exponent] = v.toExponential(Math.max(0, digits - 1)).split("e");
-  const m = mantissa.includes(".") ? mantissa.replace(/\.?0+$/, "") : mantissa;
-  const e = String(Number(exponent)).replace(/./g, (c) => SUPERSCRIPT[c] ?? c);
-  return `${m} × 10${e}`;
-}
-
-/**
  * Formats an SI value in a lab unit with `digits` significant figures and the unit symbol.
  * @example formatIn("um", 6e-6) // "6 µm"
  * @example formatIn("kHz", 123456, 3) // "123 kHz"
@@ -166,9 +149,7 @@ export function powerOfTen(v: number, digits = 4): string {
  */
 export function formatIn(unit: UnitId, valueSI: number | null | undefined, digits = 4): string {
   if (valueSI === null || valueSI === undefined || !Number.isFinite(valueSI)) return "—";
-  const v = fromSI(unit, valueSI);
-  const abs = Math.abs(v);
-  const text = abs !== 0 && (abs >= 1e6 || abs < 1e-3) ? powerOfTen(v, digits) : String(Number(v.toPrecision(digits)));
+  const text = sig(fromSI(unit, valueSI), digits);
   const symbol = LAB_UNITS[unit].symbol;
   return symbol ? `${text} ${symbol}` : text;
 }

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { describeValue, quantity } from "@/lib/dielectric";
 import { formatIn, LAB_UNITS } from "./lab";
+import { sig } from "./number";
 import { labNumber, type LabField } from "./lab-fields";
 
 /**
@@ -21,11 +22,11 @@ export interface QuantityField extends LabField {
 
 /**
  * The allowed range in words, in the lab unit and SI.
- * @example siRangeText({ label: "Gap", si: "m", unit: "um", min: 1e-6, max: 1e-3, default: 2e-5, help: "" }) // "between 1 µm and 1000 µm (1e-6 to 0.001 m)"
+ * @example siRangeText({ label: "Gap", si: "m", unit: "um", min: 1e-6, max: 1e-3, default: 2e-5, help: "" }) // "between 1 µm and 1000 µm (1 × 10⁻⁶ to 0.001 m)"
  */
 export function siRangeText(f: Pick<QuantityField, "si" | "unit" | "min" | "max">): string {
   const lab = `between ${formatIn(f.unit, f.min, 6)} and ${formatIn(f.unit, f.max, 6)}`;
-  return f.si && f.si !== LAB_UNITS[f.unit].symbol ? `${lab} (${f.min} to ${f.max} ${f.si})` : lab;
+  return f.si && f.si !== LAB_UNITS[f.unit].symbol ? `${lab} (${sig(f.min, 6)} to ${sig(f.max, 6)} ${f.si})` : lab;
 }
 
 /**
@@ -50,6 +51,6 @@ export function boundsSchema(f: QuantityField, what: string) {
   return z
     .object({ min: siNumber(f, `lowest ${what}`).optional(), max: siNumber(f, `highest ${what}`).optional() }, { error: (iss) => `${what} must be { min, max } in ${f.si} (got ${describeValue(iss.input)})` })
     .superRefine((b, ctx) => {
-      if (b.min !== undefined && b.max !== undefined && !(b.max > b.min)) ctx.addIssue({ code: "custom", path: ["max"], message: `highest ${what} (${b.max} ${f.si}) must be above the lowest (${b.min} ${f.si})` });
+      if (b.min !== undefined && b.max !== undefined && !(b.max > b.min)) ctx.addIssue({ code: "custom", path: ["max"], message: `highest ${what} (${formatIn(f.unit, b.max, 6)}) must be above the lowest (${formatIn(f.unit, b.min, 6)})` });
     });
 }

@@ -86,7 +86,7 @@ describe("bench run records and attachments", () => {
   });
 
   const refusals: [string, () => { name: string; bytes: Uint8Array }[], RegExp][] = [
-    ["too large", () => { process.env.UPLOAD_MAX_MB = String(1 / 1024); return [{ name: "big.png", bytes: new Uint8Array(4096).fill(1, 8).map((v, i) => PNG[i] ?? v) }]; }, /^big\.png is 4\.0 kB; the limit is 1\.0 kB per file\.$/],
+    ["too large", () => { process.env.UPLOAD_MAX_MB = String(1 / 1024); return [{ name: "big.png", bytes: new Uint8Array(4096).fill(1, 8).map((v, i) => PNG[i] ?? v) }]; }, /^big\.png is 4 KiB; the limit is 1 KiB per file\.$/],
     ["of the wrong type (ZIP named .csv)", () => [{ name: "counts.csv", bytes: ZIP }], /counts\.csv: its content is not a PNG or JPEG image, a CSV table or a PDF/],
     ["empty", () => [{ name: "blank.csv", bytes: new Uint8Array(0) }], /blank\.csv is empty \(0 bytes\)/],
     ["ragged text that is not a table", () => [{ name: "notes.csv", bytes: new TextEncoder().encode("just one line of words") }], /notes\.csv: its content is not/],

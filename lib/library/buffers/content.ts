@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { evaluateBuffer, SALTS, STOCKS, type BufferAddition, type BufferResult, type SaltKind, type StockKind } from "@/lib/dielectric";
-import { formatIn, tidy, toSI, fromSI } from "@/lib/units/lab";
+import { formatIn, toSI, fromSI } from "@/lib/units/lab";
+import { tidy } from "@/lib/units/number";
 import { BUFFER_FIELDS as F, MAX_ADDITIONS } from "@/lib/buffers/fields";
 import { outOfRangeMessage } from "@/lib/units/lab-fields";
 import { labSchema, siNumber } from "@/lib/units/quantity-field";

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { interdigitatedField } from "@/lib/dielectric";
-import { formatIn, fromSI, tidy, toSI } from "@/lib/units/lab";
+import { formatIn, fromSI, toSI } from "@/lib/units/lab";
+import { tidy } from "@/lib/units/number";
 import { DEVICE_FIELDS as F } from "@/lib/devices/fields";
 import { frequencyRangeIssue } from "@/lib/devices/schema";
 import { outOfRangeMessage } from "@/lib/units/lab-fields";

@@ -2,7 +2,8 @@ import { z } from "zod";
 import { fieldsOf, MODEL_LABELS, valueAt, type PopulationField } from "@/lib/populations/fields";
 import { checkModelValues, populationModelShape, specToValues, valuesToSpec, type PopulationModelValues } from "@/lib/populations/form";
 import { populationSpecSchema } from "@/lib/populations/spec";
-import { formatIn, tidy } from "@/lib/units/lab";
+import { formatIn } from "@/lib/units/lab";
+import { tidy } from "@/lib/units/number";
 import { nameSchema, notesSchema, organisationSchema, versionMetaFormSchema } from "../schemas";
 
 /** What a population is, in the lab's words. */

@@ -1,17 +1,17 @@
 import { describe, expect, it } from "vitest";
 import { InputError } from "@/lib/errors";
 import {
-  TEMPERATURE_COEFFICIENT,
   acceptanceRange25,
   checkConductivity,
   compensateTo25,
   conductivityAt,
   readingRangeAt,
 } from "@/lib/bench-sheet/acceptance";
+import { CONDUCTIVITY_TEMPERATURE_COEFFICIENT } from "@/lib/units/conductivity-temperature";
 
 describe("conductivity temperature compensation", () => {
   it("uses the linear 2 %/K rule σ(t) = σ25·(1 + 0.02·(t − 25))", () => {
-    expect(TEMPERATURE_COEFFICIENT).toBe(0.02); // 2 %/K: common practice for dilute salts, no single source
+    expect(CONDUCTIVITY_TEMPERATURE_COEFFICIENT).toBe(0.02); // 2 %/K: common practice for dilute salts, no single source
     expect(conductivityAt(0.01, 25)).toBeCloseTo(0.01, 12); // hand: no change at 25 °C
     expect(conductivityAt(0.01, 20)).toBeCloseTo(0.009, 12); // hand: 0.01 × (1 − 0.10) = 0.009 S/m
     expect(conductivityAt(0.01, 37)).toBeCloseTo(0.0124, 12); // hand: 0.01 × (1 + 0.24) = 0.0124 S/m

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { InputError } from "@/lib/errors";
 import { scaleRecipe } from "@/lib/bench-sheet/recipe";
-import { gramsText, millilitresText } from "@/lib/bench-sheet/format";
+import { formatGrams, formatMillilitres } from "@/lib/units/format";
 
 // Per-litre recipe: invented demo values. Expected amounts are computed by hand beside each check.
 const recipe = {
@@ -43,11 +43,11 @@ describe("scaleRecipe", () => {
   });
 
   it("prints amounts at balance and pipette resolution", () => {
-    expect(gramsText(21.25)).toBe("21.25 g");
-    expect(gramsText(0.75)).toBe("0.750 g");
-    expect(gramsText(0.045)).toBe("0.0450 g (45 mg)");
-    expect(gramsText(0.00666)).toBe("0.0067 g (6.66 mg)");
-    expect(millilitresText(0.2)).toBe("0.200 mL (200 µL)");
-    expect(millilitresText(12.5)).toBe("12.5 mL");
+    expect(formatGrams(21.25)).toBe("21.25 g");
+    expect(formatGrams(0.75)).toBe("0.750 g");
+    expect(formatGrams(0.045)).toBe("0.0450 g (45 mg)");
+    expect(formatGrams(0.00666)).toBe("0.0067 g (6.66 mg)");
+    expect(formatMillilitres(0.2)).toBe("0.200 mL (200 µL)");
+    expect(formatMillilitres(12.5)).toBe("12.5 mL");
   });
 });

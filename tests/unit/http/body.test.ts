@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { InputError, TooLargeError } from "@/lib/errors";
-import { describeBytes, readCappedBytes, readCappedFormData, readJson } from "@/lib/http/body";
+import { readCappedBytes, readCappedFormData, readJson } from "@/lib/http/body";
+import { formatFileSize } from "@/lib/units/size";
 import { chunkedBody, chunkedRequest } from "@/tests/support/chunked";
 
 const MiB = 1024 * 1024;
@@ -49,6 +50,6 @@ describe("streamed body caps", () => {
   });
 
   it("describes sizes in words", () => {
-    expect([describeBytes(512), describeBytes(1536), describeBytes(40 * MiB)]).toEqual(["512 bytes", "1.5 KiB", "40 MiB"]);
+    expect([formatFileSize(512), formatFileSize(1536), formatFileSize(40 * MiB)]).toEqual(["512 bytes", "1.5 KiB", "40 MiB"]);
   });
 });

@@ -55,7 +55,7 @@ describe("library forms (lab units) and stored content (SI)", () => {
     expect(deviceGradient(content).gamma).toBeGreaterThan(6e13);
     expect(deviceGradient(content).gamma).toBeLessThan(7.2e13);
     const bad = deviceFormSchema.safeParse({ ...form, minFrequencyKHz: 50_000, maxFrequencyMHz: 20 });
-    expect(bad.error?.issues.map((i) => i.message)).toContain("Highest generator frequency (MHz): the highest generator frequency (20000000 Hz) must be above the lowest (50000000 Hz).");
+    expect(bad.error?.issues.map((i) => i.message)).toContain("Highest generator frequency (MHz): the highest generator frequency (20 MHz) must be above the lowest (50 MHz).");
   });
 
   it("labNumber states the range in the field's own unit", () => {

@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { formatIn, fromSI, powerOfTen, LAB_UNITS, tidy, toSI, UNITS_BY_QUANTITY, unitsOf, type UnitId } from "@/lib/units/lab";
+import { formatIn, fromSI, LAB_UNITS, toSI, UNITS_BY_QUANTITY, unitsOf, type UnitId } from "@/lib/units/lab";
+import { powerOfTen, tidy } from "@/lib/units/number";
 
 const ALL = Object.keys(LAB_UNITS) as UnitId[];
 

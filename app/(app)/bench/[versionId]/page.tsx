@@ -6,7 +6,9 @@ import { RunForm } from "@/components/bench/run-form";
 import { VersionRuns } from "@/components/runs/version-runs";
 import { requirePageUser } from "@/lib/auth/session";
 import { can } from "@/lib/auth/roles";
-import { conductivityText, frequencyText, utcText, voltsText } from "@/lib/bench-sheet/format";
+import { formatMeterConductivity, formatFrequency, formatPercent, formatVpp, formatVrms } from "@/lib/units/format";
+import { tidy } from "@/lib/units/number";
+import { formatUtcMinute } from "@/lib/format/time";
 import { isBenchReady } from "@/lib/bench-sheet/layout";
 import { loadSheetSourceById } from "@/lib/bench-sheet/source";
 import { STATE_WORDS } from "@/lib/bench-sheet/types";
@@ -39,7 +41,7 @@ export default async function BenchVersionPage({ params }: { params: Promise<{ v
         <h1 data-testid="bench-title">{protocol.code} · {protocol.title}</h1>
         <p className="mt-1 text-ink-soft">
           Version {version.number} · <span className="font-medium" data-testid="bench-state">{STATE_WORDS[version.state]}</span>
-          {signatures.map((sig) => <span key={sig.signedAt.toISOString()}> · signed by {sig.signerName} ({sig.meaning}), {utcText(sig.signedAt)}</span>)}
+          {signatures.map((sig) => <span key={sig.signedAt.toISOString()}> · signed by {sig.signerName} ({sig.meaning}), {formatUtcMinute(sig.signedAt)}</span>)}
         </p>
         <p className="mt-1 break-all font-mono text-xs text-ink-muted">Content SHA-256 {version.contentHash}</p>
       </header>
@@ -47,7 +49,7 @@ export default async function BenchVersionPage({ params }: { params: Promise<{ v
       <section className="card space-y-3">
         <h2>Bench sheet</h2>
         <p className="text-sm text-ink-soft">
-          {frequencyText(s.frequency)}, {voltsText(s.voltageVpp, "Vpp")} ({voltsText(s.voltageVrms, "Vrms")}) sine, buffer {conductivityText(content.buffer.targetConductivity25)} ± {Math.round(content.buffer.tolerance * 100)} % at 25 °C.
+          {formatFrequency(s.frequency, 4)}, {formatVpp(s.voltageVpp)} ({formatVrms(s.voltageVrms)}) sine, buffer {formatMeterConductivity(content.buffer.targetConductivity25, { withSI: true })} ± {formatPercent(content.buffer.tolerance, 2)} at 25 °C.
         </p>
         <PrintForm protocolId={protocol.id} number={version.number} benchReady={ready} />
       </section>
@@ -57,7 +59,7 @@ export default async function BenchVersionPage({ params }: { params: Promise<{ v
           <RunForm
             versionId={version.id}
             maxUploadMb={Math.round(maxUploadBytes() / 1024 / 1024)}
-            defaults={{ operatingTemperatureC: s.temperatureC, frequencyKHz: Number((s.frequency / 1e3).toPrecision(6)), voltageVpp: Number(s.voltageVpp.toPrecision(4)), flowRateUlPerMin: s.flowRateUlPerMin }}
+            defaults={{ operatingTemperatureC: s.temperatureC, frequencyKHz: tidy(s.frequency / 1e3, 4), voltageVpp: tidy(s.voltageVpp, 3), flowRateUlPerMin: s.flowRateUlPerMin }}
           />
         </section>
       )}

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { SaveStep } from "@/components/planner/save-step";
 import { StepHeader } from "@/components/planner/step-header";
-import { formatConductivity, formatFrequency } from "@/lib/charts/format";
+import { formatConductivity, formatFrequency } from "@/lib/units/format";
 import { loadStep } from "@/lib/wizard/drafts/page-data";
 import { defaultSave, type SaveStepValues } from "@/lib/wizard/save-form";
 import { listProtocols } from "@/lib/protocols/queries";
@@ -13,7 +13,7 @@ export default async function SavePage({ params }: { params: Promise<{ draftId: 
   const rows = await listProtocols(user);
   const protocols = rows.filter((r) => r.latest.state !== "draft" && r.latest.state !== "in_review" && r.latest.state !== "returned").map((r) => ({ id: r.protocol.id, label: `${r.protocol.code} — ${r.protocol.title} (latest v${r.latest.number}, ${r.latest.state})` }));
   const sel = draft.inputs.results as { rank?: number; window?: { conductivity: number; bandStart: number; bandStop: number } | null } | undefined;
-  const summary = sel?.window ? `Window #${sel.rank}: ${formatFrequency(sel.window.bandStart)} – ${formatFrequency(sel.window.bandStop)} at ${formatConductivity(sel.window.conductivity, 3, true)}. The plan is recomputed on the server with the same seed and saved with every input and result, so the version reproduces exactly.` : null;
+  const summary = sel?.window ? `Window #${sel.rank}: ${formatFrequency(sel.window.bandStart)} – ${formatFrequency(sel.window.bandStop)} at ${formatConductivity(sel.window.conductivity, { meter: true })}. The plan is recomputed on the server with the same seed and saved with every input and result, so the version reproduces exactly.` : null;
   const initial = { ...defaultSave(draft.title), ...((draft.inputs.save as Partial<SaveStepValues> | undefined) ?? {}) };
   return (
     <>

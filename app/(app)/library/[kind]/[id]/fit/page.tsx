@@ -8,7 +8,8 @@ import { exampleCrossoverCsv } from "@/lib/fitting";
 import type { PopulationContent } from "@/lib/library/populations/content";
 import { shellSettingsOf } from "@/lib/library/fit-run";
 import { getItem } from "@/lib/library/service";
-import { fromSI, tidy } from "@/lib/units/lab";
+import { fromSI } from "@/lib/units/lab";
+import { tidy } from "@/lib/units/number";
 
 export const metadata: Metadata = { title: "Fit from crossovers" };
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatDuration } from "@/lib/format/time";
+import { formatDuration } from "@/lib/units/duration";
 
 describe("formatDuration", () => {
   it("states seconds, minutes and hours with their unit", () => {
