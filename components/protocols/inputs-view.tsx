@@ -1,6 +1,6 @@
 import type { ProtocolContent } from "@/lib/protocols/content";
 import { describePath } from "@/lib/protocols/fields";
-import { formatCellDensity, formatConductivity, formatOsmolality, formatPercent, formatQuantity, formatVpp } from "@/lib/units/format";
+import { formatCellDensity, formatConductivity, formatPercent, formatQuantity, formatVpp } from "@/lib/units/format";
 import { sig } from "@/lib/units/number";
 import { PopulationTable } from "./population-table";
 
@@ -35,13 +35,13 @@ export function InputsView({ content }: { content: ProtocolContent }) {
             rows={[
               ["Target conductivity (25 °C)", formatConductivity(buffer.targetConductivity25)],
               ["Accepted tolerance", `± ${formatPercent(buffer.tolerance)}`],
-              ["Osmolality", buffer.osmolality === null ? "not stated" : formatOsmolality(buffer.osmolality)],
+              ["Osmolality", buffer.osmolality === null ? "not stated" : formatQuantity(buffer.osmolality, "osmolalityMilli")],
               ["Longest time in buffer", `${buffer.maxMinutesInBuffer} min`],
               ...(recipe
                 ? ([
                     ["Sucrose / glucose", `${sig(recipe.sucrosePercentWV)} % / ${sig(recipe.glucosePercentWV)} % w/v`],
                     ...recipe.additions.map((a, i): [string, string] => [`Addition ${i + 1}`, `${a.label}: ${sig(a.perLitre)} ${a.kind === "solid" ? "g" : "mL"} per litre`]),
-                    ["Recipe prediction", `${formatConductivity(recipe.conductivity25)} at 25 °C, ${formatOsmolality(recipe.osmolality)}`],
+                    ["Recipe prediction", `${formatConductivity(recipe.conductivity25)} at 25 °C, ${formatQuantity(recipe.osmolality, "osmolalityMilli")}`],
                   ] as [string, string][])
                 : ([["Recipe", "measured buffer, no recipe"]] as [string, string][])),
             ]}
