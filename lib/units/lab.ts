@@ -6,9 +6,6 @@
  */
 import { sig } from "./number";
 
-/** Re-exported for the wizard's forms until they import it from ./number. */
-export { tidy } from "./number";
-
 /** Physical quantities the screens show, each with one SI unit. */
 export type Quantity =
   | "length"

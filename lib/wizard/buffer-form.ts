@@ -2,7 +2,8 @@ import { z } from "zod";
 import { conductivityAt25, evaluateBuffer, SALTS, STOCKS, type BufferAddition, type BufferResult, type SaltKind, type StockKind } from "@/lib/dielectric";
 import { BUFFER_FIELDS as F, MAX_ADDITIONS } from "@/lib/buffers/fields";
 import { conductivityRangeIssue } from "@/lib/buffers/schema";
-import { fromSI, tidy, toSI } from "@/lib/units/lab";
+import { fromSI, toSI } from "@/lib/units/lab";
+import { tidy } from "@/lib/units/number";
 import { labSchema, type QuantityField } from "@/lib/units/quantity-field";
 
 /** How the medium conductivity is given. */

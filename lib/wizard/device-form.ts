@@ -1,7 +1,8 @@
 import { z } from "zod";
 import { DEVICE_FIELDS, type DeviceFieldKey } from "@/lib/devices/fields";
 import { frequencyRangeIssue } from "@/lib/devices/schema";
-import { fromSI, tidy, toSI } from "@/lib/units/lab";
+import { fromSI, toSI } from "@/lib/units/lab";
+import { tidy } from "@/lib/units/number";
 import { labSchema } from "@/lib/units/quantity-field";
 
 /** Electrode geometry: the interdigitated preset, or a Γ from the user's own field simulation. */

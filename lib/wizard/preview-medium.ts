@@ -1,7 +1,7 @@
 import { waterPermittivity } from "@/lib/dielectric";
 import { bufferChoice, bufferStepSchema, type BufferStepValues } from "./buffer-form";
 import type { WizardInputs } from "./drafts/mapper";
-import { atOperating } from "./request";
+import { conductivityAtTemperature } from "@/lib/units/conductivity-temperature";
 
 /**
  * The medium the step-1 preview uses: the buffer of step 2 when it is valid (at the operating temperature of step 3,
@@ -15,7 +15,7 @@ export function previewMedium(inputs: WizardInputs): { medium: { conductivity: n
   if (bufferStepSchema.safeParse(inputs.buffer).success) {
     const c = bufferChoice(inputs.buffer as BufferStepValues);
     const s25 = c.conductivity25 ?? (c.range25 ? Math.sqrt(c.range25.low * c.range25.high) : null);
-    if (s25) return { medium: { conductivity: atOperating(s25, t), permittivity }, note: `from the buffer step${c.range25 ? " (middle of the range)" : ""}, at ${t} °C` };
+    if (s25) return { medium: { conductivity: conductivityAtTemperature(s25, t), permittivity }, note: `from the buffer step${c.range25 ? " (middle of the range)" : ""}, at ${t} °C` };
   }
   return { medium: { conductivity: 0.01, permittivity }, note: "a typical low-conductivity sugar buffer until you set one on the Buffer step" };
 }

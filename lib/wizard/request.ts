@@ -1,5 +1,6 @@
 import { waterPermittivity } from "@/lib/dielectric";
 import type { WindowsRequest } from "@/lib/planner/schema";
+import { conductivityAtTemperature } from "@/lib/units/conductivity-temperature";
 import { bufferChoice, bufferStepSchema, type BufferStepValues } from "./buffer-form";
 import { deviceStepSchema, meanFlowSpeed, stepFrequencyRange, stepSI, type DeviceStepValues } from "./device-form";
 import { limitsStepSchema, type LimitsStepValues } from "./limits-form";
@@ -39,14 +40,6 @@ export function mapConductivities(sigma: number): { start: number; stop: number;
 }
 
 /**
- * Conductivity at the operating temperature from a 25 °C value (2 %/K, PHYSICS.md §4, common practice).
- * @example atOperating(0.01, 37) // 0.0124 S/m
- */
-export function atOperating(sigma25: number, temperatureC: number): number {
-  return sigma25 * (1 + 0.02 * (temperatureC - 25));
-}
-
-/**
  * Builds the planner request (SI, `windowsRequestSchema`) from validated step inputs. A fixed buffer gives a fixed
  * conductivity (windows at that conductivity); a range gives a log sweep of 31 conductivities.
  * @example toWindowsRequest(ready).device.maxVoltageVpp // 20
@@ -61,8 +54,8 @@ export function toWindowsRequest(r: Extract<ReadyInputs, { ok: true }>, seed = D
     ...(choice.relativeViscosity ? { relativeViscosity: Math.max(1, choice.relativeViscosity) } : {}),
     ...(choice.osmolality !== null ? { osmolality: choice.osmolality } : {}),
     ...(choice.range25
-      ? { conductivityRange: { start: atOperating(choice.range25.low, t), stop: atOperating(choice.range25.high, t), points: 31 } }
-      : { conductivity: atOperating(choice.conductivity25 ?? 0.01, t) }),
+      ? { conductivityRange: { start: conductivityAtTemperature(choice.range25.low, t), stop: conductivityAtTemperature(choice.range25.high, t), points: 31 } }
+      : { conductivity: conductivityAtTemperature(choice.conductivity25 ?? 0.01, t) }),
   };
   const geometry: WindowsRequest["device"]["geometry"] =
     device.geometry === "interdigitated"

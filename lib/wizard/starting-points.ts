@@ -1,5 +1,6 @@
 import { EPSILON_0, PARTICLE_PRESETS, type ParticleModel } from "@/lib/dielectric";
-import { fromSI, tidy } from "@/lib/units/lab";
+import { fromSI } from "@/lib/units/lab";
+import { tidy } from "@/lib/units/number";
 import type { ParamValues as ParamForm } from "@/lib/populations/form";
 import { blankPopulation, type PopulationFormValues } from "./population-form";
 

@@ -2,6 +2,7 @@ import { evaluateSpectra, type SpectraResult } from "@/lib/dielectric";
 import { particleFrom, type OperatingWindow, type WindowsRequest, type WindowsResult } from "@/lib/planner";
 import { protocolContentSchema, type ProtocolContent } from "@/lib/protocols/content";
 import { parseOrThrow } from "@/lib/http/zod-issues";
+import { conductivityAt25 } from "@/lib/units/conductivity-temperature";
 import { isSaltKind, SALT_AND_STOCK_LABELS, type BufferStepValues } from "./buffer-form";
 import { bufferChoice } from "./buffer-form";
 import { stepFrequencyRange, stepSI, type DeviceStepValues } from "./device-form";
@@ -44,7 +45,7 @@ function reKAt(src: ContentSources): { target: number; other: number } {
 export function buildContent(src: ContentSources): ProtocolContent {
   const { populations, buffer, device, limits, request, result, window: w } = src;
   const choice = bufferChoice(buffer);
-  const sigma25 = w.operatingPoint.conductivity / (1 + 0.02 * (device.operatingTemperatureC - 25));
+  const sigma25 = conductivityAt25(w.operatingPoint.conductivity, device.operatingTemperatureC);
   const m = (key: "electrodeWidth" | "electrodeGap" | "evalHeight" | "channelHeight") => stepSI(device, key);
   const geometryDims: Record<string, number> =
     device.geometry === "interdigitated"

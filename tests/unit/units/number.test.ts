@@ -21,6 +21,9 @@ describe("significant digits", () => {
     expect(sig(0.003025519030175701 * 1e3)).toBe("3.03");
     expect(sig(1e20)).toBe("1 × 10²⁰");
     expect(sig(1000000)).toBe("1 × 10⁶");
+    expect(sig(6.62e13)).toBe("6.62 × 10¹³");
+    expect(sig(2.5e-6)).toBe("2.5 × 10⁻⁶");
+    expect(sig(12.5)).toBe("12.5");
   });
 
   it("never shows float noise (0.1 + 0.2)", () => {

@@ -1,5 +1,4 @@
 import { describe, expect, it } from "vitest";
-import { sci } from "@/lib/charts/format";
 import { blockerNames, signedSeparation, toProtocolWarning } from "@/lib/wizard/results-data";
 
 describe("results helpers", () => {
@@ -34,11 +33,5 @@ describe("results helpers", () => {
 
   it("stores the planner's 'warning' severity as the protocol's 'caution'", () => {
     expect(toProtocolWarning({ code: "heating", severity: "warning", message: "m", value: 1.2, limit: 1, advice: "a" }).severity).toBe("caution");
-  });
-
-  it("writes large and small numbers in scientific notation", () => {
-    expect(sci(6.62e13)).toBe("6.62 × 10¹³");
-    expect(sci(2.5e-6)).toBe("2.5 × 10⁻⁶");
-    expect(sci(12.5)).toBe("12.5");
   });
 });

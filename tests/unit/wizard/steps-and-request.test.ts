@@ -3,7 +3,8 @@ import { windowsRequestSchema } from "@/lib/planner";
 import { bufferChoice, bufferStepSchema, defaultBuffer, toEngineRecipe } from "@/lib/wizard/buffer-form";
 import { defaultDevice, deviceStepSchema, libraryDeviceToStep, meanFlowSpeed } from "@/lib/wizard/device-form";
 import { defaultLimits, limitsStepSchema } from "@/lib/wizard/limits-form";
-import { atOperating, readyInputs, toWindowsRequest } from "@/lib/wizard/request";
+import { readyInputs, toWindowsRequest } from "@/lib/wizard/request";
+import { conductivityAtTemperature } from "@/lib/units/conductivity-temperature";
 import { STARTING_POINTS } from "@/lib/wizard/starting-points";
 import { completedSteps } from "@/lib/wizard/progress";
 
@@ -23,7 +24,7 @@ describe("buffer step", () => {
     // 12.4 mS/m at 37 °C → 10 mS/m at 25 °C: σ25 = σ/(1 + 0.02·12) (PHYSICS.md §4, common practice).
     const c = bufferChoice({ ...defaultBuffer(), mode: "measured", measuredConductivity: 12.4, measuredAtC: 37 });
     expect(c.conductivity25).toBeCloseTo(0.01, 6);
-    expect(atOperating(0.01, 37)).toBeCloseTo(0.0124, 9);
+    expect(conductivityAtTemperature(0.01, 37)).toBeCloseTo(0.0124, 9);
   });
 
   it("checks only the chosen mode and says what is allowed", () => {
