@@ -2,7 +2,8 @@
 
 import { VictoryArea, VictoryAxis, VictoryBar, VictoryChart, VictoryLabel, VictoryLine, VictoryScatter } from "victory";
 import { AXIS_STYLE as AXIS, CHART_PADDING as PAD, ValueAxisTitle } from "@/components/charts/axes";
-import { formatFrequency } from "@/lib/charts/format";
+import { formatFrequency } from "@/lib/units/format";
+import { sig } from "@/lib/units/number";
 import { countTicks, logTicks } from "@/lib/charts/log-ticks";
 import { fromSI, LAB_UNITS, type UnitId } from "@/lib/units/lab";
 
@@ -86,7 +87,7 @@ export function ParameterHistogram({ title, values, unit, testId }: { title: str
   const w = (hi - lo) / bins || Math.abs(lo) * 0.1 || 1;
   const counts = Array.from({ length: bins }, (_, i) => ({ x: lo + (i + 0.5) * w, y: 0 }));
   for (const x of v) counts[Math.min(bins - 1, Math.floor((x - lo) / w))].y++;
-  const digits = (t: number) => String(Number(t.toPrecision(3)));
+  const digits = (t: number) => sig(t, 3);
   const edges = Array.from({ length: bins + 1 }, (_, i) => lo + i * w);
   const shown = edges.filter((_, i) => i % Math.ceil((bins + 1) / 4) === 0);
   const most = Math.max(...counts.map((c) => c.y));

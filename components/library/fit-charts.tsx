@@ -2,7 +2,8 @@
 
 import { VictoryArea, VictoryAxis, VictoryChart, VictoryLabel, VictoryLine, VictoryScatter } from "victory";
 import { AXIS_STYLE as AXIS, CHART_PADDING as PAD, ValueAxisTitle } from "@/components/charts/axes";
-import { formatFrequency, sig } from "@/lib/charts/format";
+import { formatFrequency } from "@/lib/units/format";
+import { decimals, sig } from "@/lib/units/number";
 import { logTicks } from "@/lib/charts/log-ticks";
 import type { MembraneFit } from "@/lib/fitting";
 import { fromSI } from "@/lib/units/lab";
@@ -51,7 +52,7 @@ export function ResidualsChart({ fit }: { fit: MembraneFit }) {
       <div style={{ aspectRatio: "560 / 220" }}>
       <VictoryChart scale={{ x: "log", y: "linear" }} domain={{ x, y: [-m, m] }} width={WIDTH} height={220} padding={PAD}>
         <VictoryAxis tickValues={conductivityTicks(x)} tickFormat={(t: number) => sig(t, 2)} label="Medium conductivity (mS/m, log scale)" axisLabelComponent={<VictoryLabel dy={8} />} style={AXIS} offsetY={PAD.bottom} />
-        <VictoryAxis dependentAxis crossAxis={false} tickCount={5} tickFormat={(t: number) => `${t.toFixed(Math.abs(m) < 5 ? 1 : 0)} %`} style={AXIS} />
+        <VictoryAxis dependentAxis crossAxis={false} tickCount={5} tickFormat={(t: number) => `${decimals(t, Math.abs(m) < 5 ? 1 : 0)} %`} style={AXIS} />
         <ValueAxisTitle text="Residual (% of the measured crossover)" />
         <VictoryLine data={[{ x: x[0], y: 0 }, { x: x[1], y: 0 }]} style={{ data: { stroke: "#1f2933", strokeWidth: 1 } }} />
         <VictoryScatter data={pts} size={4} symbol="diamond" labels={({ datum }: { datum: { label: string } }) => datum.label} labelComponent={<VictoryLabel dy={-12} style={{ fontSize: 9, fill: "#616e7c" }} />} style={{ data: { fill: "#a4471c" } }} />

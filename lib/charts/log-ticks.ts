@@ -1,3 +1,4 @@
+import { tidy } from "@/lib/units/number";
 import { textWidth } from "./label-layout";
 
 /** Tick mantissas per decade, densest first; the last rows skip decades. */
@@ -15,7 +16,7 @@ function ticksFor(lo: number, hi: number, mantissas: number[], decadeStep: numbe
   for (let e = first; e <= Math.ceil(Math.log10(hi)); e++) {
     if ((e - first) % decadeStep !== 0) continue;
     for (const m of mantissas) {
-      const v = Number((m * 10 ** e).toPrecision(12));
+      const v = tidy(m * 10 ** e, 12);
       if (v >= lo * (1 - 1e-9) && v <= hi * (1 + 1e-9)) out.push(v);
     }
   }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatFrequency } from "@/lib/charts/format";
+import { formatFrequency } from "@/lib/units/format";
 import { textWidth } from "@/lib/charts/label-layout";
 import { countTicks, logTicks } from "@/lib/charts/log-ticks";
 
