@@ -1,7 +1,5 @@
-import { db } from "@/db/knex";
 import { PrintForm } from "@/components/bench/print-form";
-import { checkIntegrity } from "@/lib/protocols/integrity";
-import { findVersion, listSignatures } from "@/lib/protocols/repo";
+import { versionBenchStatus } from "@/lib/protocols/queries";
 import { listRunsForVersion } from "@/lib/runs/repo";
 import { ObservedChart } from "./observed-chart";
 import { RunsTable } from "./runs-table";
@@ -12,9 +10,9 @@ import { RunsTable } from "./runs-table";
  * checked that the viewer may see the version. `showPrint={false}` where the page has its own print form.
  */
 export async function VersionRuns({ versionId, showPrint = true }: { versionId: number; showPrint?: boolean }) {
-  const [version, runs, signatures] = await Promise.all([findVersion(db, versionId), listRunsForVersion(versionId), listSignatures(db, [versionId])]);
-  if (!version) return null;
-  const benchReady = version.state === "approved" && signatures.length > 0 && checkIntegrity(version.rawContent, version.contentHash, signatures).ok;
+  const [status, runs] = await Promise.all([versionBenchStatus(versionId), listRunsForVersion(versionId)]);
+  if (!status) return null;
+  const { version, benchReady } = status;
   const predicted = version.content.selection.predicted;
   const outOfRange = runs.filter((r) => !r.conductivityAccepted).length;
   const oldestFirst = [...runs].reverse();

@@ -71,6 +71,28 @@ export async function listAuditEvents(filter: AuditFilter = {}): Promise<AuditEv
   return (await q).map(toAuditEvent);
 }
 
+/**
+ * Distinct ids of the people who recorded one of `actions` on an entity (system events, with no actor, left out).
+ * Reads inside the caller's transaction when given one.
+ * @example await actorIdsOf(trx, "protocol_version", 12, ["protocol_version.create", "protocol_version.edit"]) // [3, 5]
+ */
+export async function actorIdsOf(conn: Knex | Knex.Transaction, entityType: string, entityId: string | number, actions: readonly string[]): Promise<number[]> {
+  const rows: { actor_id: number | null }[] = await conn("audit_events")
+    .where({ entity_type: entityType, entity_id: String(entityId) })
+    .whereIn("action", [...actions])
+    .distinct("actor_id");
+  return rows.filter((r) => r.actor_id !== null).map((r) => Number(r.actor_id));
+}
+
+/**
+ * The latest event recorded on an entity, or null when there is none.
+ * @example (await latestEventOf(trx, "protocol_version", 12))?.summary // "Edited the draft"
+ */
+export async function latestEventOf(conn: Knex | Knex.Transaction, entityType: string, entityId: string | number): Promise<AuditEvent | null> {
+  const row = await conn("audit_events").where({ entity_type: entityType, entity_id: String(entityId) }).orderBy("id", "desc").first();
+  return row ? toAuditEvent(row) : null;
+}
+
 function parseJson(value: unknown): unknown {
   if (value === null || value === undefined) return null;
   return typeof value === "string" ? JSON.parse(value) : value;

@@ -29,18 +29,8 @@ import {
 import { toSI } from "@/lib/units/lab";
 import { flowText, heatingText } from "./flow";
 import { scaleRecipe } from "./recipe";
-import { STATE_WORDS, type BenchSheetLayout, type BenchSheetOptions, type BenchSheetSource, type SheetBlock, type SheetSection } from "./types";
-
-/**
- * Whether the version may be used at the bench: approved, signed, every signature's hash equals the content hash, and
- * the stored content still hashes to what was recorded.
- * @example isBenchReady({ ...source, version: { ...source.version, state: "draft" } }) // false
- */
-export function isBenchReady(source: BenchSheetSource): boolean {
-  const { version, signatures } = source;
-  const intact = (source.integrityProblems ?? []).length === 0;
-  return intact && version.state === "approved" && signatures.length > 0 && signatures.every((s) => s.contentHash === version.contentHash);
-}
+import { isBenchReady, STATE_LABELS } from "@/lib/protocols/states";
+import { type BenchSheetLayout, type BenchSheetOptions, type BenchSheetSource, type SheetBlock, type SheetSection } from "./types";
 
 function roleWord(role: string): string {
   return isRole(role) ? ROLE_LABELS[role] : role;
@@ -48,7 +38,7 @@ function roleWord(role: string): string {
 
 function statusSection(source: BenchSheetSource, options: BenchSheetOptions, ready: boolean): SheetBlock[] {
   const { version, signatures } = source;
-  const state = STATE_WORDS[version.state];
+  const state = STATE_LABELS[version.state];
   const blocks: SheetBlock[] = [];
   if (!ready) {
     const mismatch = (source.integrityProblems ?? []).length > 0 || (version.state === "approved" && signatures.some((s) => s.contentHash !== version.contentHash));
@@ -251,7 +241,7 @@ function footer(source: BenchSheetSource): BenchSheetLayout["footer"] {
  * @example buildBenchSheet(source, { volumeMl: 250, paper: "a4", printedAt: new Date() }).sections[1].id // "buffer"
  */
 export function buildBenchSheet(source: BenchSheetSource, options: BenchSheetOptions): BenchSheetLayout {
-  const ready = isBenchReady(source);
+  const ready = isBenchReady(source.version, source.signatures, source.integrityProblems);
   const { protocol, version, content } = source;
   const builders: Record<SectionId, () => SheetBlock[]> = {
     status: () => statusSection(source, options, ready),
@@ -265,7 +255,7 @@ export function buildBenchSheet(source: BenchSheetSource, options: BenchSheetOpt
     cautions: () => [{ kind: "bullets", items: CAUTIONS }],
   };
   const sections: SheetSection[] = SECTION_ORDER.map((id) => ({ id, title: SECTION_TITLES[id], blocks: builders[id]() }));
-  const stateLabel = STATE_WORDS[version.state];
+  const stateLabel = STATE_LABELS[version.state];
   return {
     paper: options.paper,
     header: {

@@ -1,5 +1,6 @@
 import { deleteQuietly, newObjectKey, putObject, readObject } from "@/lib/storage";
-import { buildBenchSheet, isBenchReady } from "./layout";
+import { isBenchReady } from "@/lib/protocols/states";
+import { buildBenchSheet } from "./layout";
 import { renderInWorker } from "./pool";
 import { countStoredSheets, findStoredSheet, insertStoredSheet, type StoredSheet } from "./stored-repo";
 import type { PaperSize } from "@/templates/bench-sheet/layout";
@@ -48,7 +49,7 @@ export async function benchSheetFile(
   options: { paper: PaperSize; volumeMl: number; printedBy: string; knownSha256?: string | null },
 ): Promise<SheetFile> {
   const { paper, volumeMl } = options;
-  if (isBenchReady(source)) {
+  if (isBenchReady(source.version, source.signatures, source.integrityProblems)) {
     let sheet = await findStoredSheet(source.version.id, paper, volumeMl);
     if (!sheet) {
       const flightKey = `${source.version.id}|${paper}|${volumeMl}`;

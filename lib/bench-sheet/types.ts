@@ -1,19 +1,6 @@
 import type { ProtocolContent } from "@/lib/protocols/content";
+import type { VersionState } from "@/lib/protocols/states";
 import type { PaperSize, SectionId } from "@/templates/bench-sheet/layout";
-
-/** Version states as stored in protocol_versions.state. */
-export const BENCH_VERSION_STATES = ["draft", "in_review", "approved", "returned", "superseded", "retired"] as const;
-export type BenchVersionState = (typeof BENCH_VERSION_STATES)[number];
-
-/** How each state is printed. */
-export const STATE_WORDS: Record<BenchVersionState, string> = {
-  draft: "Draft",
-  in_review: "In review",
-  approved: "Approved",
-  returned: "Returned",
-  superseded: "Superseded",
-  retired: "Retired",
-};
 
 /** One electronic signature on the version, with the signer's name. */
 export interface SheetSignature {
@@ -27,7 +14,7 @@ export interface SheetSignature {
 /** Everything the sheet is built from: the protocol, the version, its signatures and its frozen content. */
 export interface BenchSheetSource {
   protocol: { id: number; code: string; title: string; purpose: string };
-  version: { id: number; number: number; state: BenchVersionState; contentHash: string; engineVersion: string };
+  version: { id: number; number: number; state: VersionState; contentHash: string; engineVersion: string };
   signatures: SheetSignature[];
   content: ProtocolContent;
   /** Problems found when the stored content was re-hashed on read (empty when content and signatures agree). */

@@ -1,5 +1,6 @@
-import { db } from "@/db/knex";
+import { countVersionsByState, listCurrentApproved, versionLabels } from "@/lib/protocols/queries";
 import type { VersionState } from "@/lib/protocols/states";
+import { listRecentRuns, runStatsByVersion } from "@/lib/runs/repo";
 
 /** Read-only figures for the role home pages (supervisor dashboard, queue and bench counts). */
 
@@ -37,14 +38,7 @@ export interface RecentRun {
  * @example (await versionStateCounts()).in_review // 1
  */
 export async function versionStateCounts(): Promise<Partial<Record<VersionState, number>>> {
-  const rows: { state: VersionState; n: number }[] = await db("protocol_versions").select("state").count({ n: "*" }).groupBy("state");
-  return Object.fromEntries(rows.map((r) => [r.state, Number(r.n)]));
-}
-
-function predictedPurity(content: unknown): number | null {
-  const parsed = typeof content === "string" ? JSON.parse(content) : content;
-  const value = (parsed as { selection?: { predicted?: { purity?: unknown } } })?.selection?.predicted?.purity;
-  return typeof value === "number" ? value : null;
+  return countVersionsByState();
 }
 
 /**
@@ -52,41 +46,26 @@ function predictedPurity(content: unknown): number | null {
  * @example const inUse = await versionsInUse(); inUse[0].runCount
  */
 export async function versionsInUse(): Promise<VersionInUse[]> {
-  const rows = await db("protocol_versions as v")
-    .join("protocols as p", "p.id", "v.protocol_id")
-    .where("v.state", "approved")
-    .select("v.id", "v.number", "v.approved_at", "v.content_json", "p.id as protocol_id", "p.code", "p.title")
-    .orderBy("v.approved_at", "desc");
-  const ids = rows.map((r) => Number(r.id));
-  if (ids.length === 0) return [];
-  const runStats: { version_id: number; n: number; last: string | null; purity: number | null; rejected: number | null }[] = await db("bench_runs")
-    .whereIn("version_id", ids)
-    .groupBy("version_id")
-    .select("version_id")
-    .count({ n: "*" })
-    .max({ last: "created_at" })
-    .avg({ purity: "observed_purity" })
-    .sum({ rejected: db.raw("CASE WHEN conductivity_accepted THEN 0 ELSE 1 END") }) as never;
-  const signers = await db("signatures as s")
-    .join("users as u", "u.id", "s.signer_id")
-    .whereIn("s.version_id", ids)
-    .orderBy("s.signed_at", "desc")
-    .select("s.version_id", "u.name");
-  return rows.map((r) => {
-    const stats = runStats.find((s) => Number(s.version_id) === Number(r.id));
+  const approved = await listCurrentApproved();
+  if (approved.length === 0) return [];
+  const stats = await runStatsByVersion(approved.map((a) => a.version.id));
+  return approved.map(({ protocol, version, signatures }) => {
+    const s = stats.get(version.id);
+    const latestSigner = signatures.reduce<(typeof signatures)[number] | null>((a, b) => (a && a.signedAt.getTime() >= b.signedAt.getTime() ? a : b), null);
+    const purity = version.content?.selection?.predicted?.purity;
     return {
-      protocolId: Number(r.protocol_id),
-      code: r.code,
-      title: r.title,
-      versionNumber: Number(r.number),
-      versionId: Number(r.id),
-      approvedAt: r.approved_at ? new Date(r.approved_at) : null,
-      signedBy: signers.find((s) => Number(s.version_id) === Number(r.id))?.name ?? null,
-      runCount: Number(stats?.n ?? 0),
-      lastRunAt: stats?.last ? new Date(stats.last) : null,
-      readingsOutOfRange: Number(stats?.rejected ?? 0),
-      meanObservedPurity: stats?.purity === null || stats?.purity === undefined ? null : Number(stats.purity),
-      predictedPurity: predictedPurity(r.content_json),
+      protocolId: protocol.id,
+      code: protocol.code,
+      title: protocol.title,
+      versionNumber: version.number,
+      versionId: version.id,
+      approvedAt: version.approvedAt,
+      signedBy: latestSigner?.signerName ?? null,
+      runCount: s?.runCount ?? 0,
+      lastRunAt: s?.lastRunAt ?? null,
+      readingsOutOfRange: s?.readingsOutOfRange ?? 0,
+      meanObservedPurity: s?.meanObservedPurity ?? null,
+      predictedPurity: typeof purity === "number" ? purity : null,
     };
   });
 }
@@ -96,24 +75,22 @@ export async function versionsInUse(): Promise<VersionInUse[]> {
  * @example const runs = await recentRuns(10);
  */
 export async function recentRuns(limit = 10): Promise<RecentRun[]> {
-  const rows = await db("bench_runs as r")
-    .join("protocol_versions as v", "v.id", "r.version_id")
-    .join("protocols as p", "p.id", "v.protocol_id")
-    .join("users as u", "u.id", "r.technician_id")
-    .select("r.id", "r.created_at", "r.conductivity_accepted", "r.observed_purity", "r.observed_recovery", "v.number", "p.id as protocol_id", "p.code", "u.name")
-    .orderBy("r.created_at", "desc")
-    .limit(limit);
-  return rows.map((r) => ({
-    id: Number(r.id),
-    code: r.code,
-    versionNumber: Number(r.number),
-    protocolId: Number(r.protocol_id),
-    technicianName: r.name,
-    createdAt: new Date(r.created_at),
-    conductivityAccepted: Boolean(r.conductivity_accepted),
-    observedPurity: r.observed_purity === null ? null : Number(r.observed_purity),
-    observedRecovery: r.observed_recovery === null ? null : Number(r.observed_recovery),
-  }));
+  const runs = await listRecentRuns(limit);
+  const labels = await versionLabels(runs.map((r) => r.versionId));
+  return runs.map((r) => {
+    const label = labels.get(r.versionId)!;
+    return {
+      id: r.id,
+      code: label.code,
+      versionNumber: label.number,
+      protocolId: label.protocolId,
+      technicianName: r.technicianName,
+      createdAt: r.createdAt,
+      conductivityAccepted: r.conductivityAccepted,
+      observedPurity: r.observedPurity,
+      observedRecovery: r.observedRecovery,
+    };
+  });
 }
 
 /**
@@ -121,12 +98,6 @@ export async function recentRuns(limit = 10): Promise<RecentRun[]> {
  * @example (await openWorkOf(dana.id)).returned
  */
 export async function openWorkOf(userId: number): Promise<{ drafts: number; returned: number; inReview: number }> {
-  const rows: { state: VersionState; n: number }[] = await db("protocol_versions")
-    .where({ author_id: userId })
-    .whereIn("state", ["draft", "returned", "in_review"])
-    .select("state")
-    .count({ n: "*" })
-    .groupBy("state");
-  const get = (s: VersionState) => Number(rows.find((r) => r.state === s)?.n ?? 0);
-  return { drafts: get("draft"), returned: get("returned"), inReview: get("in_review") };
+  const counts = await countVersionsByState({ authorId: userId, states: ["draft", "returned", "in_review"] });
+  return { drafts: counts.draft ?? 0, returned: counts.returned ?? 0, inReview: counts.in_review ?? 0 };
 }

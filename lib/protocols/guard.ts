@@ -1,4 +1,5 @@
 import type { Knex } from "knex";
+import { latestEventOf } from "@/lib/audit/repo";
 import { ConflictError, ForbiddenError, NotFoundError } from "@/lib/errors";
 import { formatDateTime } from "@/lib/format/time";
 import type { Role } from "@/lib/auth/roles";
@@ -55,10 +56,7 @@ async function explainState(trx: Knex.Transaction, v: ProtocolVersion, fallback:
 }
 
 async function staleMessage(trx: Knex.Transaction, v: ProtocolVersion, loaded: number): Promise<string> {
-  const last = await trx("audit_events")
-    .where({ entity_type: "protocol_version", entity_id: String(v.id) })
-    .orderBy("id", "desc")
-    .first("summary", "actor_email", "occurred_at");
-  const who = last ? ` The latest change: "${last.summary}" by ${last.actor_email ?? "the system"} at ${formatDateTime(new Date(last.occurred_at))}.` : "";
+  const last = await latestEventOf(trx, "protocol_version", v.id);
+  const who = last ? ` The latest change: "${last.summary}" by ${last.actorEmail ?? "the system"} at ${formatDateTime(last.occurredAt)}.` : "";
   return `Version ${v.number} changed after you opened it (you loaded change ${loaded}; it is now at change ${v.lockVersion}).${who} Reload the page to see the current version; nothing was saved.`;
 }

@@ -1,12 +1,13 @@
 import { db } from "@/db/knex";
 import { ForbiddenError, NotFoundError } from "@/lib/errors";
+import { namesByIds } from "@/lib/users/repo";
 import type { Actor } from "./guard";
 import { checkIntegrity, type Integrity } from "./integrity";
 import type { Protocol, ProtocolVersion, ReviewComment, Signature } from "./mapper";
 import { toProtocol, toVersion } from "./mapper";
 import { denial, newVersionDenial } from "./policy";
 import * as repo from "./repo";
-import { nextState, type VersionState } from "./states";
+import { isBenchReady, nextState, type VersionState } from "./states";
 
 /** Reads for the screens and for other features (bench), with visibility rules and a hash check on every read. */
 
@@ -27,11 +28,6 @@ export interface VersionView {
   can: { edit: boolean; submit: boolean; return: boolean; approve: boolean; retire: boolean; newVersion: boolean };
   /** Why the viewer may not approve (shown to reviewers), or null. */
   approveBlockedBecause: string | null;
-}
-
-async function names(ids: number[]): Promise<Map<number, string>> {
-  const rows: { id: number; name: string }[] = ids.length ? await db("users").whereIn("id", [...new Set(ids)]).select("id", "name") : [];
-  return new Map(rows.map((r) => [Number(r.id), r.name]));
 }
 
 function assertVisible(viewer: Viewer, state: VersionState): void {
@@ -55,7 +51,7 @@ export async function getVersionView(viewer: Viewer, protocolId: number, number:
     repo.previousApproved(db, protocolId, number),
     repo.latestVersion(db, protocolId),
   ]);
-  const who = await names([version.authorId, version.lastEditorId]);
+  const who = await namesByIds([version.authorId, version.lastEditorId]);
   const policyVersion = { state: version.state, authorId: version.authorId, editorIds };
   const allowed = (action: "edit" | "submit" | "return" | "approve" | "retire", event: Parameters<typeof nextState>[1]) =>
     !denial(viewer, action, policyVersion) && (nextState(version.state, event) !== null || (event === "edit" && version.state === "returned"));
@@ -100,7 +96,7 @@ export async function getProtocolView(viewer: Viewer, protocolId: number): Promi
   if (viewer.role === "admin" || viewer.role === "technician") assertVisible(viewer, "draft");
   const versions = await repo.listVersions(db, protocolId);
   const signatures = await repo.listSignatures(db, versions.map((v) => v.id));
-  const who = await names(versions.map((v) => v.authorId));
+  const who = await namesByIds(versions.map((v) => v.authorId));
   const latest = versions[0];
   return {
     protocol,
@@ -151,7 +147,7 @@ export async function listProtocols(viewer: Viewer, filter: ProtocolFilter = {})
   const protocols = (await q.limit(500)).map(toProtocol);
   if (protocols.length === 0) return [];
   const versions = (await db("protocol_versions").whereIn("protocol_id", protocols.map((p) => p.id)).orderBy("number", "desc")).map(toVersion);
-  const who = await names(versions.map((v) => v.authorId));
+  const who = await namesByIds(versions.map((v) => v.authorId));
   return protocols.map((protocol) => {
     const own = versions.filter((v) => v.protocolId === protocol.id);
     const latest = own[0];
@@ -168,8 +164,9 @@ export async function listProtocols(viewer: Viewer, filter: ProtocolFilter = {})
 
 /** Authors who have written at least one version (for the list filter). */
 export async function listAuthors(): Promise<{ id: number; name: string }[]> {
-  const rows = await db("users as u").whereExists(db("protocol_versions as v").whereRaw("v.author_id = u.id").select(db.raw("1"))).orderBy("u.name").select("u.id", "u.name");
-  return rows.map((r) => ({ id: Number(r.id), name: r.name }));
+  const ids: { author_id: number }[] = await db("protocol_versions").distinct("author_id");
+  const who = await namesByIds(ids.map((r) => Number(r.author_id)));
+  return [...who].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name, "en", { sensitivity: "base" }) || a.id - b.id);
 }
 
 /** One entry of the reviewer's queue. */
@@ -190,7 +187,7 @@ export async function reviewQueue(viewer: Viewer): Promise<QueueItem[]> {
   const rows = await db("protocol_versions").where({ state: "in_review" }).orderBy("submitted_at").orderBy("id");
   const versions = rows.map(toVersion);
   const protocols = new Map((await db("protocols").whereIn("id", versions.map((v) => v.protocolId))).map((r) => [Number(r.id), toProtocol(r)]));
-  const who = await names(versions.map((v) => v.authorId));
+  const who = await namesByIds(versions.map((v) => v.authorId));
   return Promise.all(
     versions.map(async (version) => {
       const editors = await repo.editorIds(db, version);
@@ -230,4 +227,42 @@ export async function readVersionById(viewer: Viewer, versionId: number): Promis
   const protocol = (await repo.findProtocol(db, version.protocolId))!;
   const signatures = await repo.listSignatures(db, [version.id]);
   return { protocol, version, signatures, integrity: checkIntegrity(version.rawContent, version.contentHash, signatures) };
+}
+
+/**
+ * A version with whether it is ready for the bench (isBenchReady on its signatures and a fresh hash check), for the
+ * runs panel; null when there is no such version. No visibility check: the caller has already checked the viewer.
+ * @example const status = await versionBenchStatus(12); status?.benchReady // true for an intact, signed approval
+ */
+export async function versionBenchStatus(versionId: number): Promise<{ version: ProtocolVersion; benchReady: boolean } | null> {
+  const version = await repo.findVersion(db, versionId);
+  if (!version) return null;
+  const signatures = await repo.listSignatures(db, [versionId]);
+  const integrity = checkIntegrity(version.rawContent, version.contentHash, signatures);
+  return { version, benchReady: isBenchReady(version, signatures, integrity.problems) };
+}
+
+/**
+ * Number of protocol versions in each state, optionally only one author's and only some states.
+ * @example (await countVersionsByState()).in_review // 1
+ */
+export async function countVersionsByState(filter: { authorId?: number; states?: readonly VersionState[] } = {}): Promise<Partial<Record<VersionState, number>>> {
+  const q = db("protocol_versions").select("state").count({ n: "*" }).groupBy("state");
+  if (filter.authorId !== undefined) q.where({ author_id: filter.authorId });
+  if (filter.states) q.whereIn("state", [...filter.states]);
+  const rows = (await q) as unknown as { state: VersionState; n: number }[];
+  return Object.fromEntries(rows.map((r) => [r.state, Number(r.n)]));
+}
+
+/**
+ * Protocol code, id and version number of each version id, for lists of runs.
+ * @example (await versionLabels([12])).get(12) // { protocolId: 3, code: "LFQ-001", number: 2 }
+ */
+export async function versionLabels(versionIds: number[]): Promise<Map<number, { protocolId: number; code: string; number: number }>> {
+  if (versionIds.length === 0) return new Map();
+  const rows = await db("protocol_versions as v")
+    .join("protocols as p", "p.id", "v.protocol_id")
+    .whereIn("v.id", [...new Set(versionIds)])
+    .select("v.id", "v.number", "p.id as protocol_id", "p.code");
+  return new Map(rows.map((r) => [Number(r.id), { protocolId: Number(r.protocol_id), code: String(r.code), number: Number(r.number) }]));
 }

@@ -1,5 +1,6 @@
 import type { Knex } from "knex";
 import { db } from "@/db/knex";
+import { actorIdsOf } from "@/lib/audit/repo";
 import type { VersionState } from "./states";
 import { toComment, toProtocol, toSignature, toVersion, type Protocol, type ProtocolVersion, type ReviewComment, type Signature } from "./mapper";
 
@@ -135,13 +136,19 @@ export async function updateVersion(trx: Conn, id: number, expectedLock: number,
 
 /** Everyone who created or edited the version, read from the append-only audit trail plus the row itself. */
 export async function editorIds(conn: Conn, version: Pick<ProtocolVersion, "id" | "authorId" | "lastEditorId">): Promise<number[]> {
-  const rows: { actor_id: number | null }[] = await conn("audit_events")
-    .where({ entity_type: "protocol_version", entity_id: String(version.id) })
-    .whereIn("action", ["protocol_version.create", "protocol_version.edit"])
-    .distinct("actor_id");
   const ids = new Set<number>([version.authorId, version.lastEditorId]);
-  for (const r of rows) if (r.actor_id !== null) ids.add(Number(r.actor_id));
+  for (const id of await actorIdsOf(conn, "protocol_version", version.id, ["protocol_version.create", "protocol_version.edit"])) ids.add(id);
   return [...ids];
+}
+
+/**
+ * Locks a version row until `trx` ends and returns its state (null when the row is gone), so another feature can
+ * check "still approved" and write in the same transaction.
+ * @example if ((await lockVersionState(trx, 12)) !== "approved") throw new ConflictError("…");
+ */
+export async function lockVersionState(trx: Knex.Transaction, id: number): Promise<VersionState | null> {
+  const row = await trx("protocol_versions").where({ id }).forUpdate().first("state");
+  return row ? (row.state as VersionState) : null;
 }
 
 /** Inserts a signature; returns its id. */
@@ -185,6 +192,42 @@ export async function listComments(conn: Conn, versionId: number): Promise<Revie
     .orderBy("c.id")
     .select("c.*", "u.name as author_name");
   return rows.map(toComment);
+}
+
+/** A protocol version whose content refers to a library item (see versionsReferring). */
+export interface ItemReference {
+  protocolVersionId: number;
+  protocolId: number;
+  protocolCode: string | null;
+  number: number;
+  state: string;
+  itemVersion: number;
+}
+
+/**
+ * Protocol versions (any state) whose content refers, at one of the JSON paths `refPaths` (each path's `.id` and
+ * `.version`), to item `id`, optionally only its version `version`; one entry per path that matches. Empty when the
+ * protocol tables do not exist yet (the library migrates first).
+ * @example await versionsReferring(db, ["$.buffer.source"], 3) // [{ protocolCode: "LFQ-001", number: 2, state: "approved", itemVersion: 1, … }]
+ */
+export async function versionsReferring(conn: Knex | undefined, refPaths: readonly string[], id: number, version?: number): Promise<ItemReference[]> {
+  conn ??= db;
+  const hasVersions = await conn.schema.hasTable("protocol_versions");
+  if (!hasVersions) return [];
+  const hasProtocols = await conn.schema.hasTable("protocols");
+  const out: ItemReference[] = [];
+  for (const path of refPaths) {
+    const idExpr = `CAST(JSON_VALUE(pv.content_json, '${path}.id') AS UNSIGNED)`;
+    const versionExpr = `CAST(JSON_VALUE(pv.content_json, '${path}.version') AS UNSIGNED)`;
+    const q = conn("protocol_versions as pv")
+      .select("pv.id", "pv.protocol_id", "pv.number", "pv.state", conn.raw(`${versionExpr} as item_version`))
+      .whereRaw(`${idExpr} = ?`, [id]);
+    if (version !== undefined) q.whereRaw(`${versionExpr} = ?`, [version]);
+    if (hasProtocols) q.leftJoin("protocols as p", "p.id", "pv.protocol_id").select("p.code");
+    for (const r of await q)
+      out.push({ protocolVersionId: Number(r.id), protocolId: Number(r.protocol_id), protocolCode: r.code ?? null, number: Number(r.number), state: String(r.state), itemVersion: Number(r.item_version) });
+  }
+  return out;
 }
 
 export { db };

@@ -67,6 +67,15 @@ export const OPEN_STATES: readonly VersionState[] = ["draft", "in_review", "retu
 export const SIGNED_STATES: readonly VersionState[] = ["approved", "superseded", "retired"];
 
 /**
+ * The "ready for the bench" rule: the version is approved, signed, every signature covers the version's content hash,
+ * and re-hashing the stored content found no problem (`integrityProblems` from checkIntegrity, empty when intact).
+ * @example isBenchReady({ state: "approved", contentHash: h }, [{ contentHash: h }], []) // true
+ */
+export function isBenchReady(version: { state: VersionState; contentHash: string }, signatures: readonly { contentHash: string }[], integrityProblems: readonly string[] = []): boolean {
+  return integrityProblems.length === 0 && version.state === "approved" && signatures.length > 0 && signatures.every((s) => s.contentHash === version.contentHash);
+}
+
+/**
  * Whether the version is open (draft, in review or returned).
  * @example isOpen("returned") // true
  */

@@ -177,3 +177,47 @@ export async function legacyAttachments(conn: Conn = db): Promise<Attachment[]> 
 export async function moveAttachmentKey(id: number, oldPath: string, key: string, conn: Conn = db): Promise<boolean> {
   return (await conn("attachments").where({ id, storage_path: oldPath }).update({ storage_path: key })) === 1;
 }
+
+/** How the runs of one version went (for the supervisor's dashboard). Purity as a fraction. */
+export interface VersionRunStats {
+  runCount: number;
+  lastRunAt: Date | null;
+  /** Runs whose measured buffer conductivity was outside the acceptance range. */
+  readingsOutOfRange: number;
+  meanObservedPurity: number | null;
+}
+
+/**
+ * Run statistics per version id (versions without runs are absent).
+ * @example (await runStatsByVersion([12])).get(12)?.runCount // 3
+ */
+export async function runStatsByVersion(versionIds: number[], conn: Conn = db): Promise<Map<number, VersionRunStats>> {
+  if (versionIds.length === 0) return new Map();
+  const rows: { version_id: number; n: number; last: string | null; purity: number | null; rejected: number | null }[] = await conn("bench_runs")
+    .whereIn("version_id", versionIds)
+    .groupBy("version_id")
+    .select("version_id")
+    .count({ n: "*" })
+    .max({ last: "created_at" })
+    .avg({ purity: "observed_purity" })
+    .sum({ rejected: conn.raw("CASE WHEN conductivity_accepted THEN 0 ELSE 1 END") }) as never;
+  return new Map(
+    rows.map((s) => [
+      num(s.version_id),
+      { runCount: num(s.n ?? 0), lastRunAt: s.last ? new Date(s.last) : null, readingsOutOfRange: num(s.rejected ?? 0), meanObservedPurity: maybeNum(s.purity) },
+    ]),
+  );
+}
+
+/**
+ * The latest runs across all versions, newest first, without attachments.
+ * @example const runs = await listRecentRuns(10); runs[0].technicianName
+ */
+export async function listRecentRuns(limit: number, conn: Conn = db): Promise<BenchRun[]> {
+  const rows: Row[] = await conn("bench_runs as r")
+    .join("users as u", "u.id", "r.technician_id")
+    .orderBy("r.created_at", "desc")
+    .limit(limit)
+    .select("r.*", "u.name as technician_name");
+  return rows.map((r) => toRun(r));
+}

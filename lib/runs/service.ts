@@ -5,6 +5,7 @@ import { checkConductivity } from "@/lib/bench-sheet/acceptance";
 import { ConflictError, ForbiddenError } from "@/lib/errors";
 import { parseOrThrow } from "@/lib/http/zod-issues";
 import { readVersionById } from "@/lib/protocols/queries";
+import { lockVersionState } from "@/lib/protocols/repo";
 import { deleteQuietly } from "@/lib/storage";
 import { checkFiles, storeRunFiles, type UploadFile } from "./attachments";
 import { insertAttachment, insertRun, listRunsForVersion, type BenchRun, type NewRun } from "./repo";
@@ -66,8 +67,7 @@ export async function recordRun(actor: RunActor, raw: unknown, files: UploadFile
   let recorded = false;
   try {
     await db.transaction(async (trx) => {
-      const locked = await trx("protocol_versions").where({ id: version.id }).forUpdate().first("state");
-      if (locked?.state !== "approved") throw new ConflictError(`Version ${version.number} of ${protocol.code} stopped being current while you entered the run; nothing was saved.`);
+      if ((await lockVersionState(trx, version.id)) !== "approved") throw new ConflictError(`Version ${version.number} of ${protocol.code} stopped being current while you entered the run; nothing was saved.`);
       runId = await insertRun(trx, run);
       for (const [i, f] of checked.entries()) {
         await insertAttachment(trx, { runId, fileName: f.name.slice(0, 255), mimeType: f.mimeType, sizeBytes: f.bytes.length, sha256: f.sha256, storagePath: stored[i].key });

@@ -81,6 +81,16 @@ export async function updateUser(conn: Knex, id: number, patch: { role?: Role; a
   await conn("users").where({ id }).update({ ...patch, updated_at: conn.fn.now(3) });
 }
 
+/**
+ * Display names of the given user ids (unknown ids are left out), for pages that list who did what.
+ * @example (await namesByIds([3, 5])).get(3) // "Dana Okafor"
+ */
+export async function namesByIds(ids: readonly number[], conn: Knex = db): Promise<Map<number, string>> {
+  const unique = [...new Set(ids)];
+  const rows: { id: number; name: string }[] = unique.length ? await conn("users").whereIn("id", unique).select("id", "name") : [];
+  return new Map(rows.map((r) => [Number(r.id), r.name]));
+}
+
 /** All users, by name. */
 export async function listUsers(): Promise<User[]> {
   return (await db<UserRow>("users").orderBy("name")).map(toUser);

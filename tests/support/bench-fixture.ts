@@ -2,7 +2,8 @@ import bcrypt from "bcryptjs";
 import type { Knex } from "knex";
 import { protocolContentSchema, type ProtocolContent } from "@/lib/protocols/content";
 import { contentHash } from "@/lib/protocols/hash";
-import type { BenchSheetSource, BenchVersionState } from "@/lib/bench-sheet/types";
+import type { BenchSheetSource } from "@/lib/bench-sheet/types";
+import type { VersionState } from "@/lib/protocols/states";
 
 /**
  * A complete, valid protocol version for bench-sheet and run-record tests. Demo data: every number is invented
@@ -81,7 +82,7 @@ export const BENCH_CONTENT_HASH = contentHash(BENCH_CONTENT);
  * A bench-sheet source built from the fixture without a database.
  * @example buildBenchSheet(fixtureSource("draft"), options)
  */
-export function fixtureSource(state: BenchVersionState = "approved", signed = state === "approved"): BenchSheetSource {
+export function fixtureSource(state: VersionState = "approved", signed = state === "approved"): BenchSheetSource {
   return {
     protocol: { id: 1, code: "QH-LYM-01", title: "Live/dead lymphocyte clean-up", purpose: "Remove dead cells before expansion." },
     version: { id: 11, number: 3, state, contentHash: BENCH_CONTENT_HASH, engineVersion: "fixture-1" },
@@ -112,7 +113,7 @@ export interface InsertedVersion {
  * signature when approved. Creates the demo developer and reviewer when missing.
  * @example await insertBenchVersion(db, { code: "QH-LYM-01", state: "approved" })
  */
-export async function insertBenchVersion(conn: Knex, opts: { code: string; state: BenchVersionState; number?: number; title?: string }): Promise<InsertedVersion> {
+export async function insertBenchVersion(conn: Knex, opts: { code: string; state: VersionState; number?: number; title?: string }): Promise<InsertedVersion> {
   const author = await userId(conn, "dana.dev@example.test", "Dana Developer", "developer");
   const reviewer = await userId(conn, "quinn.qa@example.test", "Quinn Reviewer", "reviewer");
   const existing = await conn("protocols").where({ code: opts.code }).first("id");

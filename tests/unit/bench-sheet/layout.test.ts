@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { buildBenchSheet, isBenchReady } from "@/lib/bench-sheet/layout";
+import { buildBenchSheet } from "@/lib/bench-sheet/layout";
+import { isBenchReady } from "@/lib/protocols/states";
 import { SECTION_ORDER } from "@/templates/bench-sheet/layout";
 import { fixtureSource } from "@/tests/support/bench-fixture";
 
@@ -26,7 +27,7 @@ describe("buildBenchSheet", () => {
   it("marks an approved version whose signature hash differs from its content hash", () => {
     const source = fixtureSource("approved");
     source.signatures[0].contentHash = "0".repeat(64);
-    expect(isBenchReady(source)).toBe(false);
+    expect(isBenchReady(source.version, source.signatures, source.integrityProblems)).toBe(false);
     const layout = buildBenchSheet(source, options);
     expect(layout.mark).toBe("NOT FOR BENCH USE");
     expect(text(layout)).toContain("does not match the content hash that was signed");

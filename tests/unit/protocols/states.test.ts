@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { VERSION_EVENTS, VERSION_STATES, isOpen, nextState, refusal, type VersionEvent, type VersionState } from "@/lib/protocols/states";
+import { VERSION_EVENTS, VERSION_STATES, isBenchReady, isOpen, nextState, refusal, type VersionEvent, type VersionState } from "@/lib/protocols/states";
 
 /** The lifecycle from DESIGN.md: every allowed step, and every other (state, event) pair refused. */
 const ALLOWED: [VersionState, VersionEvent, VersionState][] = [
@@ -46,5 +46,19 @@ describe("version state machine", () => {
 
   it("knows which states are open", () => {
     expect(VERSION_STATES.filter(isOpen)).toEqual(["draft", "in_review", "returned"]);
+  });
+});
+
+describe("isBenchReady", () => {
+  const h = "a".repeat(64);
+  it("is true only for an approved, signed version whose signatures cover its hash and whose content re-hashes clean", () => {
+    expect(isBenchReady({ state: "approved", contentHash: h }, [{ contentHash: h }], [])).toBe(true);
+    expect(isBenchReady({ state: "approved", contentHash: h }, [], [])).toBe(false);
+    expect(isBenchReady({ state: "approved", contentHash: h }, [{ contentHash: "b".repeat(64) }], [])).toBe(false);
+    expect(isBenchReady({ state: "approved", contentHash: h }, [{ contentHash: h }], ["The stored content hashes to …"])).toBe(false);
+  });
+
+  it.each(VERSION_STATES.filter((s) => s !== "approved"))("is false for a signed %s version", (state) => {
+    expect(isBenchReady({ state, contentHash: h }, [{ contentHash: h }], [])).toBe(false);
   });
 });

@@ -9,9 +9,8 @@ import { can } from "@/lib/auth/roles";
 import { formatMeterConductivity, formatFrequency, formatPercent, formatVpp, formatVrms } from "@/lib/units/format";
 import { tidy } from "@/lib/units/number";
 import { formatUtcMinute } from "@/lib/format/time";
-import { isBenchReady } from "@/lib/bench-sheet/layout";
 import { loadSheetSourceById } from "@/lib/bench-sheet/source";
-import { STATE_WORDS } from "@/lib/bench-sheet/types";
+import { isBenchReady, STATE_LABELS } from "@/lib/protocols/states";
 import { NotFoundError } from "@/lib/errors";
 import { maxUploadBytes } from "@/lib/runs/attachments";
 
@@ -32,7 +31,7 @@ export default async function BenchVersionPage({ params }: { params: Promise<{ v
   if (!Number.isInteger(id) || id <= 0) notFound();
   const source = await load(user, id);
   const { protocol, version, signatures, content } = source;
-  const ready = isBenchReady(source);
+  const ready = isBenchReady(version, signatures, source.integrityProblems);
   const s = content.selection;
   return (
     <div className="max-w-6xl space-y-6">
@@ -40,7 +39,7 @@ export default async function BenchVersionPage({ params }: { params: Promise<{ v
         <p className="text-sm"><Link href="/bench">Current protocols</Link></p>
         <h1 data-testid="bench-title">{protocol.code} · {protocol.title}</h1>
         <p className="mt-1 text-ink-soft">
-          Version {version.number} · <span className="font-medium" data-testid="bench-state">{STATE_WORDS[version.state]}</span>
+          Version {version.number} · <span className="font-medium" data-testid="bench-state">{STATE_LABELS[version.state]}</span>
           {signatures.map((sig) => <span key={sig.signedAt.toISOString()}> · signed by {sig.signerName} ({sig.meaning}), {formatUtcMinute(sig.signedAt)}</span>)}
         </p>
         <p className="mt-1 break-all font-mono text-xs text-ink-muted">Content SHA-256 {version.contentHash}</p>
