@@ -11,6 +11,8 @@ import { formatIn, toSI } from "@/lib/units/lab";
 import { NumberField, SubmitRow } from "./form-bits";
 import { applyServerErrors } from "./save-result";
 import { VersionMetaFields, type EditingInfo } from "./version-meta-fields";
+import { formatPercentFixed } from "@/lib/units/format";
+import { decimals } from "@/lib/units/number";
 
 const num = { setValueAs: readNumber };
 
@@ -101,8 +103,8 @@ export function BufferForm({ defaults, editing }: { defaults: FormValues; editin
                 <ul className="mt-1 space-y-0.5">
                   <li>Conductivity {formatIn("mS_m", prediction.result.conductivity25, 3)} ({formatIn("uS_cm", prediction.result.conductivity25, 3)})</li>
                   <li>Osmolality {formatIn("mOsm_kg", prediction.result.osmolality, 3)}</li>
-                  <li>Viscosity {(prediction.result.relativeViscosity).toFixed(2)} × water</li>
-                  {target !== null && <li className={Math.abs(prediction.result.conductivity25 / target - 1) > 0.1 ? "text-caution" : "text-moss-dark"}>{((prediction.result.conductivity25 / target - 1) * 100).toFixed(0)} % from the target</li>}
+                  <li>Viscosity {decimals(prediction.result.relativeViscosity, 2)} × water</li>
+                  {target !== null && <li className={Math.abs(prediction.result.conductivity25 / target - 1) > 0.1 ? "text-caution" : "text-moss-dark"}>{formatPercentFixed(prediction.result.conductivity25 / target - 1, 0)} from the target</li>}
                   {prediction.result.warnings.map((w) => <li key={w.code} className="text-caution">{w.message}</li>)}
                 </ul>
               ) : (

@@ -6,7 +6,7 @@ import { CROSSOVER_CSV_COLUMNS, listUnits, parseCrossoverCsv, type CrossoverCsvR
 import { InputError } from "@/lib/errors";
 import { runCrossoverFit, type CrossoverFitRequest } from "@/lib/library/fit-run";
 import { formatIn, fromSI, toSI } from "@/lib/units/lab";
-import { tidy } from "@/lib/units/number";
+import { decimals, tidy } from "@/lib/units/number";
 import { FitCurveChart, ResidualsChart } from "./fit-charts";
 
 interface Props {
@@ -187,8 +187,8 @@ export function FitWorkbench(p: Props) {
                 <div className="rounded-md border border-paper-line bg-paper p-3 text-sm">
                   <p>{fit.pointCount} points, {fit.degreesOfFreedom} degrees of freedom</p>
                   <p>RMS residual {tidy(fit.rmsRelative * 100, 3)} %</p>
-                  {fit.rSquared !== null && <p>R² {fit.rSquared.toFixed(4)}</p>}
-                  {fit.correlation !== null && <p>Correlation of C and G {fit.correlation.toFixed(2)}</p>}
+                  {fit.rSquared !== null && <p>R² {decimals(fit.rSquared, 4)}</p>}
+                  {fit.correlation !== null && <p>Correlation of C and G {decimals(fit.correlation, 2)}</p>}
                   <p className="text-xs text-ink-muted">In SI: C = {tidy(fit.capacitance.estimate, 4)} F/m², G = {tidy(fit.conductance.estimate, 4)} S/m²; radius {tidy(fromSI("um", fit.curve.radius), 3)} µm.</p>
                 </div>
               </div>

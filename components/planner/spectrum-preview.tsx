@@ -9,6 +9,7 @@ import { spectraBody, toSeries } from "@/lib/wizard/spectra-request";
 import { SpectraChart, type SpectrumLine } from "@/components/charts/spectra-chart";
 import { useDebounced, useSlow } from "./use-debounced";
 import { ComputeState } from "./compute-state";
+import { decimals } from "@/lib/units/number";
 
 /** Input of the live preview: the two populations (SI specs; null while invalid) and the medium. */
 export interface PreviewInput {
@@ -48,7 +49,7 @@ export function SpectrumPreview({ input, mediumNote }: { input: PreviewInput; me
     <section aria-labelledby="preview-heading" className="card" data-testid="spectrum-preview">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h2 id="preview-heading">Re[K] preview</h2>
-        <p className="text-xs text-ink-muted">Medium {formatConductivity(debounced.medium.conductivity, { meter: true })}, εr {debounced.medium.permittivity.toFixed(1)} — {mediumNote}</p>
+        <p className="text-xs text-ink-muted">Medium {formatConductivity(debounced.medium.conductivity, { meter: true })}, εr {decimals(debounced.medium.permittivity, 1)} — {mediumNote}</p>
       </div>
       <ComputeState slow={slow} stale={busy && Boolean(query.data)} error={query.error ? (query.error as Error).message : null} />
       {!input.target && !input.other && <p className="text-sm text-ink-muted">Fix the fields marked below to see the spectra.</p>}

@@ -1,6 +1,7 @@
 "use client";
 
 import { VictoryAxis, VictoryChart, VictoryLegend, VictoryLine, VictoryScatter } from "victory";
+import { formatPercentFixed } from "@/lib/units/format";
 
 /** One run's observations (fractions 0–1; null where not counted). */
 export interface ObservedPoint {
@@ -46,7 +47,7 @@ export function ObservedChart({ points, predicted }: { points: ObservedPoint[]; 
         <VictoryScatter data={purity} size={4.5} symbol="square" style={{ data: { fill: MOSS } }} />
       </VictoryChart>
       <figcaption className="hint">
-        Predicted by the model: recovery {(predicted.recovery * 100).toFixed(1)} %, purity {(predicted.purity * 100).toFixed(1)} %. Points are the runs recorded against this version.
+        Predicted by the model: recovery {formatPercentFixed(predicted.recovery, 1)}, purity {formatPercentFixed(predicted.purity, 1)}. Points are the runs recorded against this version.
       </figcaption>
     </figure>
   );

@@ -4,6 +4,7 @@
  */
 import type { ParameterSpread } from "@/lib/fitting";
 import type { PopulationSpec, SpreadParam } from "@/lib/populations/spec";
+import { formatPercentFixed } from "@/lib/units/format";
 
 /** Models whose membrane and interior are what a spectrum fit estimates (innermost membrane, core). */
 export const CHARACTERISABLE_MODELS = ["single-shell", "walled"] as const;
@@ -25,7 +26,7 @@ export function applySpreads(spec: PopulationSpec, spreads: ParameterSpread[]): 
   const notes: string[] = [];
   const next: PopulationSpec = structuredClone(spec);
   const param = (s: ParameterSpread): SpreadParam => {
-    if (s.cv > 1) notes.push(`${SPEC_TARGET[s.name]}: CV ${(s.cv * 100).toFixed(0)} % capped at 100 %`);
+    if (s.cv > 1) notes.push(`${SPEC_TARGET[s.name]}: CV ${formatPercentFixed(s.cv, 0)} capped at 100 %`);
     return { mean: s.mean, cv: Math.min(1, s.cv), distribution: s.distribution };
   };
   for (const s of spreads) {

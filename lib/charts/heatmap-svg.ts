@@ -5,6 +5,7 @@
 import { decadeTicks } from "@/lib/charts/ticks";
 import { formatConductivity, formatFrequency } from "@/lib/units/format";
 import { divergingHex } from "./diverging-scale";
+import { decimals } from "@/lib/units/number";
 
 /** What the SVG shows; row-major values (index i·nf + j is conductivity i, frequency j). */
 export interface HeatmapSvgData {
@@ -30,7 +31,7 @@ export function heatmapSvg(d: HeatmapSvgData): string {
   const lx = (x: number) => L + ((Math.log10(x) - Math.log10(f[0])) / (Math.log10(f[f.length - 1]) - Math.log10(f[0]))) * (W - L - R);
   const ly = (s: number) => H - B - ((Math.log10(s) - Math.log10(cMin)) / (Math.log10(cMax) - Math.log10(cMin))) * (H - T - B);
   const edge = (arr: number[], k: number, lo: number, hi: number) => (k <= 0 ? lo : k >= arr.length ? hi : Math.sqrt(arr[k - 1] * arr[k]));
-  const n = (x: number) => x.toFixed(2);
+  const n = (x: number) => decimals(x, 2);
   const parts: string[] = [];
   parts.push(`<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}" font-family="DejaVu Sans, sans-serif" font-size="11">`);
   parts.push(`<title>${esc(d.title)}</title><rect width="${W}" height="${H}" fill="#ffffff"/>`);

@@ -18,6 +18,7 @@ import { EngineValidationError } from "./errors";
 import { brentRoot } from "./roots";
 import { conductivityAtTemperature, DEFAULT_CONDUCTIVITY_TEMPERATURE_COEFFICIENT, waterPermittivity, waterViscosity } from "./medium";
 import { describeValue, parseOrThrow, quantity } from "./validation";
+import { formatPlain } from "@/lib/units/format";
 
 /** Solid salts that can be weighed in. */
 export const SALTS = {
@@ -211,7 +212,7 @@ function compute(r: BufferRecipe): BufferResult {
     warnings.push({ code: "osmolality-high", severity: "warning", message: `predicted osmolality ${mOsm(osmolality)} is above ${mOsm(ISOTONIC_RANGE.max)}: mammalian cells shrink; reduce sugar or salt` });
   }
   if (ionicStrength > 0.2) {
-    warnings.push({ code: "ionic-strength-high", severity: "caution", message: `ionic strength ${ionicStrength.toPrecision(3)} mol/L is above 0.2 mol/L, where the conductivity model loses accuracy; measure the conductivity` });
+    warnings.push({ code: "ionic-strength-high", severity: "caution", message: `ionic strength ${formatPlain(ionicStrength)} mol/L is above 0.2 mol/L, where the conductivity model loses accuracy; measure the conductivity` });
   }
   if (sugarFraction > 0.3) {
     warnings.push({ code: "sugar-high", severity: "caution", message: "sugar above 30 % by mass is outside the viscosity fit" });

@@ -5,6 +5,7 @@
  */
 import { requirePositive } from "./guards";
 import { EngineValidationError } from "./errors";
+import { formatLength, formatPlain } from "@/lib/units/format";
 
 /** The isomotive pair: Γ, field strength per volt at a distance from the vertex, and the approximation in words. */
 export interface IsomotiveField {
@@ -43,7 +44,7 @@ export function isomotiveField(vertexDistance: number, distance = vertexDistance
     distance,
     vertexDistance,
     source: "isomotive preset",
-    approximation: `Constant-gradient (isomotive) electrodes, driven electrode ${vertexDistance} m from the vertex: the 2-D potential A·ρ^(3/2)·cos(3θ/2) gives ∇|E_rms|² = 9V_rms²/(4R³) everywhere between the electrodes, pointing away from the vertex; ends and the chamber's height are neglected.`,
+    approximation: `Constant-gradient (isomotive) electrodes, driven electrode ${formatLength(vertexDistance)} from the vertex: the 2-D potential A·ρ^(3/2)·cos(3θ/2) gives ∇|E_rms|² = 9V_rms²/(4R³) everywhere between the electrodes, pointing away from the vertex; ends and the chamber's height are neglected.`,
   };
 }
 
@@ -80,12 +81,12 @@ export function rotationChamberField(tipDistance: number, userFieldPerVolt?: num
     return {
       fieldPerVolt: userFieldPerVolt,
       source: "user value",
-      approximation: `Rotating-field amplitude ${userFieldPerVolt} V/m per volt as entered by the user (e.g. from their own field simulation).`,
+      approximation: `Rotating-field amplitude ${formatPlain(userFieldPerVolt)} V/m per volt as entered by the user (e.g. from their own field simulation).`,
     };
   }
   return {
     fieldPerVolt: 2 / tipDistance,
     source: "parallel-plate estimate",
-    approximation: `Rotating-field amplitude at the chamber centre estimated as 2V0/d with tip-to-tip distance d = ${tipDistance} m (parallel-plate estimate; pointed tips give less at the centre, so prefer a simulated value).`,
+    approximation: `Rotating-field amplitude at the chamber centre estimated as 2V0/d with tip-to-tip distance d = ${formatLength(tipDistance)} (parallel-plate estimate; pointed tips give less at the centre, so prefer a simulated value).`,
   };
 }

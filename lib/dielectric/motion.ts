@@ -6,6 +6,7 @@ import { requirePositive } from "./guards";
 import { EngineValidationError } from "./errors";
 import { EPSILON_0 } from "./units";
 import { isomotiveField } from "./electrodes";
+import { formatLength, formatPerCubicMetre } from "@/lib/units/format";
 
 /**
  * Time-averaged DEP force in N: F = 2π ε0 εm r³ Re[K] ∇|E_rms|².
@@ -97,7 +98,7 @@ export function interdigitatedField(electrodeWidth: number, electrodeGap: number
     fieldPerVolt: 1 / electrodeGap,
     length: electrodeGap,
     source: "interdigitated preset",
-    approximation: `Interdigitated electrodes (width ${electrodeWidth} m, gap ${electrodeGap} m): Γ from the fundamental Fourier mode of the potential at ${height} m above the electrode plane; higher modes near the electrode edges are neglected, so the gradient there is larger than stated. Field strength in the gap taken as V/gap.`,
+    approximation: `Interdigitated electrodes (width ${formatLength(electrodeWidth)}, gap ${formatLength(electrodeGap)}): Γ from the fundamental Fourier mode of the potential at ${formatLength(height)} above the electrode plane; higher modes near the electrode edges are neglected, so the gradient there is larger than stated. Field strength in the gap taken as V/gap.`,
   };
 }
 
@@ -118,6 +119,6 @@ export function deviceField(g: DeviceGeometry): DeviceField {
     fieldPerVolt: 1 / g.electrodeGap,
     length: g.electrodeGap,
     source: "user value",
-    approximation: `Γ = ${g.gamma} m⁻³ as entered by the user (e.g. from their own field simulation); field strength taken as V/gap with gap ${g.electrodeGap} m.`,
+    approximation: `Γ = ${formatPerCubicMetre(g.gamma)} as entered by the user (e.g. from their own field simulation); field strength taken as V/gap with gap ${formatLength(g.electrodeGap)}.`,
   };
 }

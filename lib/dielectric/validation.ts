@@ -6,6 +6,7 @@ import { z } from "zod";
 import { EngineValidationError, type ValidationIssue } from "./errors";
 import { LIMITS } from "./limits";
 import type { SpectraRequest, SweepRequest } from "./types";
+import { tidy } from "@/lib/units/number";
 
 /** Short readable form of any input value for error messages. Example: `describeValue(-5e-6)` → "-5e-6". */
 export function describeValue(v: unknown): string {
@@ -13,7 +14,7 @@ export function describeValue(v: unknown): string {
   if (typeof v === "number") {
     if (Number.isNaN(v)) return "NaN";
     if (!Number.isFinite(v)) return v > 0 ? "Infinity" : "-Infinity";
-    return Number.parseFloat(v.toPrecision(6)).toString();
+    return String(tidy(v, 6));
   }
   if (typeof v === "string") return JSON.stringify(v.length > 40 ? `${v.slice(0, 40)}…` : v);
   if (Array.isArray(v)) return `a list of ${v.length}`;

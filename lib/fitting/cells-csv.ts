@@ -20,6 +20,7 @@ import { CsvHeaderError, CsvTooLargeError } from "./errors";
 import { MAX_CSV_BYTES, utf8Length } from "./csv";
 import { MAX_CELLS, type CellInput } from "./population";
 import { MAX_SPECTRUM_POINTS, type SpectrumKind } from "./spectrum-schema";
+import { formatLength } from "@/lib/units/format";
 
 const FREQ_UNITS: Record<string, number> = { hz: 1, khz: 1e3, mhz: 1e6 };
 const LENGTH_UNITS: Record<string, number> = { "µm": 1e-6, um: 1e-6, nm: 1e-9, m: 1 };
@@ -138,7 +139,7 @@ export function parseCellsCsv(text: string): CellsCsvResult {
     const radius = size === null ? null : size * (h.size?.factor ?? 1);
     if (radius !== null) {
       if (entry.radius !== null && Math.abs(radius / entry.radius - 1) > 1e-9)
-        bad("radius", `cell ${id} already has radius ${+(entry.radius * 1e6).toPrecision(4)} µm (row ${entry.radiusRow}); each cell has one radius`);
+        bad("radius", `cell ${id} already has radius ${formatLength(entry.radius, 4)} (row ${entry.radiusRow}); each cell has one radius`);
       else if (entry.radius === null) [entry.radius, entry.radiusRow] = [radius, rowNumber];
     }
     entry.points.push({ frequency: (f as number) * h.frequency.factor, value: (v as number) * h.value.factor });

@@ -7,6 +7,7 @@ import { compileParticle, effectivePermittivityInto, imagCM, realCM, EPSILON_0, 
 import { mulberry32, normalSource } from "@/lib/planner/prng";
 import { rotationPerImK, velocityPerReK } from "./conversions";
 import type { SpectrumKind } from "./spectrum-schema";
+import { csvNumber } from "@/lib/units/number";
 
 /** The setup the example files were made with (SI): medium, devices and drive. */
 export const EXAMPLE_SETUP = {
@@ -79,7 +80,7 @@ export function exampleCellsCsv(kind: SpectrumKind, cells = 24, frequencies = 16
       const mi = -m.conductivity / (EPSILON_0 * w);
       const k0 = kind === "rotation-rate" || kind === "im-k" ? imagCM(o[0], o[1], m.permittivity, mi) : realCM(o[0], o[1], m.permittivity, mi);
       const value = scale * (k0 + 0.02 * z());
-      lines.push([id, +(f / 1e3).toPrecision(4), +value.toPrecision(4), k === 0 ? +(radius * 1e6).toPrecision(3) : ""].join(","));
+      lines.push([id, csvNumber(f / 1e3, 4), csvNumber(value, 4), k === 0 ? csvNumber(radius * 1e6, 3) : ""].join(","));
     });
   }
   return lines.join("\n") + "\n";

@@ -1,4 +1,5 @@
 import type { AcceptedUnit, ColumnRole } from "./csv-columns";
+import { sig } from "@/lib/units/number";
 
 export interface PlausibleRange {
   /** SI limits (S/m, Hz, °C, m). */
@@ -19,15 +20,6 @@ const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const DECIMAL_COMMA = /^[+-]?\d+,\d+$/;
 const THOUSANDS = /^[+-]?\d{1,3}(,\d{3})+(\.\d+)?$/;
 
-/** 3 significant digits; exponent form ("1e9", "1e-5") outside 0.001–99 999. */
-function short(x: number): string {
-  const a = Math.abs(x);
-  if (a !== 0 && (a >= 1e5 || a < 1e-3)) {
-    const [m, e] = x.toExponential(2).split("e");
-    return `${+m}e${+e}`;
-  }
-  return String(+x.toPrecision(3));
-}
 
 /** Written value to SI; divides by exact powers of ten so that 10 µm is exactly 1e-5 m. */
 function toSI(written: number, unit: AcceptedUnit): number {
@@ -66,7 +58,7 @@ export function readCell(raw: string, role: ColumnRole, unit: AcceptedUnit, labe
   if (!(value >= range.min && value <= range.max)) {
     const lo = (range.min - unit.offset) / unit.factor;
     const hi = (range.max - unit.offset) / unit.factor;
-    return { reason: `${cell} ${unit.symbol} is outside the plausible range ${short(lo)} to ${short(hi)} ${unit.symbol} (${range.why}); check the number and the unit in the header` };
+    return { reason: `${cell} ${unit.symbol} is outside the plausible range ${sig(lo)} to ${sig(hi)} ${unit.symbol} (${range.why}); check the number and the unit in the header` };
   }
   return { value };
 }

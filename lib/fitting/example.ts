@@ -1,4 +1,6 @@
 import { SHELL_CROSSOVER_DEFAULTS, shellFirstCrossover } from "./shell-crossover";
+import { formatConductivity } from "@/lib/units/format";
+import { csvNumber } from "@/lib/units/number";
 
 export interface ExampleCsvOptions {
   /** Membrane capacitance, F/m² (default 0.01 = 1 µF/cm²). */
@@ -38,9 +40,9 @@ export function exampleCrossoverCsv(options: ExampleCsvOptions = {}): string {
   const lines = [["medium conductivity (mS/m)", "crossover frequency (kHz)", "temperature (°C)"].join(delimiter)];
   conductivitiesMilliSiemensPerMetre.forEach((mS, k) => {
     const f = shellFirstCrossover(mS / 1000, radius, capacitance, conductance, SHELL_CROSSOVER_DEFAULTS);
-    if (f === null) throw new RangeError(`no crossover at ${mS} mS/m: σm ≤ r·G = ${radius * conductance * 1000} mS/m; choose a higher conductivity or a lower conductance`);
+    if (f === null) throw new RangeError(`no crossover at ${formatConductivity(mS / 1000)}: σm ≤ r·G = ${formatConductivity(radius * conductance)}; choose a higher conductivity or a lower conductance`);
     const kHz = (f / 1000) * (1 + scatter * Math.sin(2.3 * k + 1));
-    lines.push([String(mS), String(+kHz.toPrecision(4)), String(temperatureC)].join(delimiter));
+    lines.push([csvNumber(mS), csvNumber(kHz, 4), csvNumber(temperatureC)].join(delimiter));
   });
   return lines.join("\n") + "\n";
 }

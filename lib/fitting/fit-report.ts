@@ -1,6 +1,8 @@
 import type { Estimate, Problem } from "./fit-core";
 import type { FitStatistics } from "./fit-stats";
 import type { CurvePoint, FitWarning, ParameterEstimate } from "./fit-types";
+import { formatConductance, formatConductivity, formatSI } from "@/lib/units/format";
+import { decimals } from "@/lib/units/number";
 
 /** Conductivity span (max/min) below which G is flagged as hard to determine (common practice, no source). */
 export const NARROW_CONDUCTIVITY_SPAN = 3;
@@ -19,7 +21,7 @@ export function extent(values: number[]): [number, number] {
   return values.reduce<[number, number]>(([lo, hi], v) => [Math.min(lo, v), Math.max(hi, v)], [Infinity, -Infinity]);
 }
 
-const mS = (s: number) => `${+(s * 1000).toPrecision(3)} mS/m`;
+const mS = (s: number) => formatConductivity(s);
 const rows = (problem: Problem) => problem.points.map((p) => p.rowNumber).filter((r): r is number => r !== undefined);
 
 /**
@@ -60,23 +62,23 @@ export function identifiabilityWarnings(
   if (stats.dof <= 0)
     out.push({ code: "no-degrees-of-freedom", message: `${problem.points.length} point(s) for ${problem.points.length - stats.dof} parameter(s): the curve passes through every point, so no ${pct} confidence interval can be given. Measure at more medium conductivities.` });
   else if (stats.dof < 3)
-    out.push({ code: "few-points", message: `Only ${stats.dof} degree(s) of freedom: the t factor is ${stats.tQuantile?.toFixed(2)}, so the intervals are wide. Five or more conductivities give a usable fit.` });
+    out.push({ code: "few-points", message: `Only ${stats.dof} degree(s) of freedom: the t factor is ${stats.tQuantile === null || stats.tQuantile === undefined ? "—" : decimals(stats.tQuantile, 2)}, so the intervals are wide. Five or more conductivities give a usable fit.` });
   if (problem.fitConductance && hi / lo < NARROW_CONDUCTIVITY_SPAN)
-    out.push({ code: "narrow-conductivity-range", parameter: "conductance", message: `The medium conductivities span only ${mS(lo)} to ${mS(hi)} (×${(hi / lo).toFixed(2)}). Membrane conductance shows only as a bend in crossover vs conductivity; measure over at least a ×${NARROW_CONDUCTIVITY_SPAN} range, including the lowest conductivity the cells tolerate.` });
+    out.push({ code: "narrow-conductivity-range", parameter: "conductance", message: `The medium conductivities span only ${mS(lo)} to ${mS(hi)} (×${decimals(hi / lo, 2)}). Membrane conductance shows only as a bend in crossover vs conductivity; measure over at least a ×${NARROW_CONDUCTIVITY_SPAN} range, including the lowest conductivity the cells tolerate.` });
   if (problem.fitConductance && stats.reciprocalCondition < NEAR_SINGULAR_RCOND)
-    out.push({ code: "near-singular", parameter: "conductance", message: `These data cannot separate capacitance from conductance: their estimates are correlated by ${((1 - stats.reciprocalCondition) / (1 + stats.reciprocalCondition)).toFixed(4)} (limit 0.98), so a change in one is offset by the other and the conductance is not determined. Widen the conductivity range or fix the conductance.` });
+    out.push({ code: "near-singular", parameter: "conductance", message: `These data cannot separate capacitance from conductance: their estimates are correlated by ${decimals((1 - stats.reciprocalCondition) / (1 + stats.reciprocalCondition), 4)} (limit 0.98), so a change in one is offset by the other and the conductance is not determined. Widen the conductivity range or fix the conductance.` });
   for (const e of estimates) {
     if (!e.fitted || !e.confidenceInterval || e.standardError === null) continue;
     const half = e.confidenceInterval.upper - e.estimate;
     if (half > Math.abs(e.estimate)) {
       const name = e.unit === "F/m²" ? "capacitance" : "conductance";
-      out.push({ code: "parameter-undetermined", parameter: name, message: `The data do not determine the membrane ${name}: its ${pct} interval (${e.confidenceInterval.lower.toPrecision(3)} to ${e.confidenceInterval.upper.toPrecision(3)} ${e.unit}) is wider than the estimate ${e.estimate.toPrecision(3)} ${e.unit} itself${e.confidenceInterval.lower <= 0 ? " and includes zero" : ""}.` });
+      out.push({ code: "parameter-undetermined", parameter: name, message: `The data do not determine the membrane ${name}: its ${pct} interval (${formatSI(e.confidenceInterval.lower, e.unit)} to ${formatSI(e.confidenceInterval.upper, e.unit)}) is wider than the estimate ${formatSI(e.estimate, e.unit)} itself${e.confidenceInterval.lower <= 0 ? " and includes zero" : ""}.` });
     }
   }
   if (bounds.lower)
     out.push({ code: "at-bound", parameter: "conductance", message: `The best conductance is at its lower limit, 0 S/m²: the data show no sign of membrane conductance. The interval is approximate at a limit; read it as an upper bound.` });
   if (bounds.upper)
-    out.push({ code: "at-bound", parameter: "conductance", message: `The best conductance is at its upper limit ${problem.gMax.toPrecision(3)} S/m², where the lowest-conductivity point would lose its crossover. The model does not describe these data; check the lowest-conductivity rows.`, rowNumbers: rows(problem) });
+    out.push({ code: "at-bound", parameter: "conductance", message: `The best conductance is at its upper limit ${formatConductance(problem.gMax)}, where the lowest-conductivity point would lose its crossover. The model does not describe these data; check the lowest-conductivity rows.`, rowNumbers: rows(problem) });
   return out;
 }
 

@@ -7,6 +7,7 @@ import type { CrossoverPoint, FitOptions, FitWarning, MembraneFit, PointResidual
 import { crossoverRadicand } from "./model";
 import { shellCrossoverModel, type CrossoverModel } from "./shell-crossover";
 import type { CrossoverModelUsed } from "./fit-types";
+import { formatConductance, formatConductivity, formatLength } from "@/lib/units/format";
 
 /** The closed form in words. */
 export const MEMBRANE_FIT_MODEL =
@@ -108,14 +109,14 @@ export function fitMembrane(points: readonly CrossoverPoint[], options: FitOptio
   const conductance = parameterEstimate(estimate.conductance, "S/m²", opts.fitConductance, stats, 1);
   const warnings: FitWarning[] = identifiabilityWarnings(problem, stats, [capacitance, conductance], boundState(problem, estimate), opts.confidenceLevel);
   if (dropped.length)
-    warnings.push({ code: "no-crossover", message: `${dropped.length} point(s) have σm ≤ r·G at the fixed conductance ${opts.fixedConductance} S/m², so the model has no crossover there; they were left out of the fit.`, rowNumbers: dropped.flatMap((d) => (d.rowNumber ? [d.rowNumber] : [])) });
+    warnings.push({ code: "no-crossover", message: `${dropped.length} point(s) have σm ≤ r·G at the fixed conductance ${formatConductance(opts.fixedConductance)}, so the model has no crossover there; they were left out of the fit.`, rowNumbers: dropped.flatMap((d) => (d.rowNumber ? [d.rowNumber] : [])) });
   if (!converged)
     warnings.push({ code: "not-converged", message: `The fit stopped after ${iterations} iterations without settling; treat the estimates as provisional and try starting values.` });
   const radii = kept.map((k) => k.radius);
   const curve = fittedCurve(problem, estimate, stats, opts.curvePoints);
   const [rMin, rMax] = extent(radii);
   if (rMax > rMin * 1.01)
-    warnings.push({ code: "radius-varies", message: `Radii differ between points; each residual uses its own radius, the curve is drawn at the median radius ${(curve.radius * 1e6).toPrecision(3)} µm.` });
+    warnings.push({ code: "radius-varies", message: `Radii differ between points; each residual uses its own radius, the curve is drawn at the median radius ${formatLength(curve.radius)}.` });
   const residuals = residualsOf(problem, estimate);
   const cov = stats.covariance;
   return {
@@ -138,7 +139,7 @@ export function fitMembrane(points: readonly CrossoverPoint[], options: FitOptio
     rmsRelative: rms(residuals.map((r) => r.relativeResidual)),
     residualStandardError: stats.dof > 0 ? Math.sqrt(stats.sse / stats.dof) : null,
     curve,
-    excluded: dropped.map((d) => ({ index: d.index, rowNumber: d.rowNumber, reason: `σm ≤ r·G (${d.conductivity} S/m ≤ ${d.radius} m × ${opts.fixedConductance} S/m²): no first crossover in the model` })),
+    excluded: dropped.map((d) => ({ index: d.index, rowNumber: d.rowNumber, reason: `σm ≤ r·G (${formatConductivity(d.conductivity)} ≤ ${formatLength(d.radius)} × ${formatConductance(opts.fixedConductance)}): no first crossover in the model` })),
     warnings,
     iterations,
     converged,

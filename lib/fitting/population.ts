@@ -10,6 +10,8 @@ import { fitCellSpectrum, type CellSpectrumFit } from "./spectrum-fit";
 import { PARAMETER_INFO } from "./spectrum-model";
 import { cellSpectrumRequestSchema, type CellSpectrumRequest, type FitParameterName } from "./spectrum-schema";
 import { FittingInputError } from "./errors";
+import { formatPercentFixed } from "@/lib/units/format";
+import { decimals } from "@/lib/units/number";
 
 /** Most cells one population fit takes. */
 export const MAX_CELLS = 2000;
@@ -116,11 +118,11 @@ export function flagOutliers(cells: CellResult[], names: FitParameterName[]): Ce
     if (!c.fit) reasons.push(c.error ?? "could not be fitted");
     else {
       if (!c.fit.converged) reasons.push("fit did not converge");
-      if (c.fit.warnings.some((w) => w.code === "poor-fit")) reasons.push(`poor fit (RMS ${(c.fit.relativeRms * 100).toFixed(0)} % of range)`);
+      if (c.fit.warnings.some((w) => w.code === "poor-fit")) reasons.push(`poor fit (RMS ${formatPercentFixed(c.fit.relativeRms, 0)} of range)`);
       stats.forEach((s, k) => {
         if (fitted.length < 5 || !(s.mad > 0)) return;
         const z = (0.6745 * (Math.log(c.fit!.parameters[k].estimate) - s.med)) / s.mad;
-        if (Math.abs(z) > OUTLIER_Z) reasons.push(`${PARAMETER_INFO[s.name].label} far from the others (modified z ${z.toFixed(1)})`);
+        if (Math.abs(z) > OUTLIER_Z) reasons.push(`${PARAMETER_INFO[s.name].label} far from the others (modified z ${decimals(z, 1)})`);
       });
     }
     return { ...c, outlier: reasons.length > 0, reasons };

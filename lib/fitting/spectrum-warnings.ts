@@ -5,6 +5,7 @@
 import { compileParticle, crossoverFrequencies, effectivePermittivityInto, imagCM, EPSILON_0, type Particle } from "@/lib/dielectric";
 import { PARAMETER_INFO } from "./spectrum-model";
 import type { CellSpectrumRequest } from "./spectrum-schema";
+import { formatFrequency, formatPercent, formatPercentFixed, formatSI } from "@/lib/units/format";
 
 export type SpectrumWarningCode =
   | "not-converged"
@@ -63,7 +64,7 @@ function sideWarnings(req: CellSpectrumRequest, feature: number, what: string): 
   const freqs = req.points.map((p) => p.frequency);
   const below = freqs.filter((f) => f < feature).length;
   const above = freqs.filter((f) => f > feature).length;
-  const at = `${what} of the fitted model at ${feature.toPrecision(3)} Hz`;
+  const at = `${what} of the fitted model at ${formatFrequency(feature)}`;
   const out: SpectrumWarning[] = [];
   if (below < MIN_FREQUENCIES_PER_SIDE)
     out.push({ code: "few-frequencies-below-crossover", message: `Only ${below} measured frequenc${below === 1 ? "y lies" : "ies lie"} below the ${at}; measure at least ${MIN_FREQUENCIES_PER_SIDE} on each side, or the membrane parameters rest on the model rather than the data.` });
@@ -87,14 +88,14 @@ export function spectrumWarnings(x: Inputs): SpectrumWarning[] {
     const value = Math.exp(x.theta[k]);
     if (x.theta[k] <= x.lower[k] + 1e-6 || x.theta[k] >= x.upper[k] - 1e-6) {
       const which = x.theta[k] <= x.lower[k] + 1e-6 ? "lower" : "upper";
-      out.push({ code: "at-bound", parameter: name, message: `The ${info.label} went to its ${which} limit (${value.toPrecision(3)} ${info.unit}): the data do not determine it; read the value as a bound, and consider holding it fixed.` });
+      out.push({ code: "at-bound", parameter: name, message: `The ${info.label} went to its ${which} limit (${formatSI(value, info.unit)}): the data do not determine it; read the value as a bound, and consider holding it fixed.` });
       return;
     }
     const se = x.seLog[k];
     if (x.singular || (x.dof > 0 && se === null))
       out.push({ code: "parameter-undetermined", parameter: name, message: `The ${info.label} cannot be separated from the other fitted parameters with these frequencies; fit fewer parameters.` });
     else if (se !== null && x.tQuantile !== null && x.tQuantile * se > Math.log(UNDETERMINED_FACTOR))
-      out.push({ code: "parameter-undetermined", parameter: name, message: `The data hardly determine the ${info.label}: its interval, ${(value * Math.exp(-x.tQuantile * se)).toPrecision(3)} to ${(value * Math.exp(x.tQuantile * se)).toPrecision(3)} ${info.unit}, spans more than a factor ${UNDETERMINED_FACTOR} either way.` });
+      out.push({ code: "parameter-undetermined", parameter: name, message: `The data hardly determine the ${info.label}: its interval, ${formatSI(value * Math.exp(-x.tQuantile * se), info.unit)} to ${formatSI(value * Math.exp(x.tQuantile * se), info.unit)}, spans more than a factor ${UNDETERMINED_FACTOR} either way.` });
   });
   const wantsMembrane = req.fit.some((f) => f === "membraneCapacitance" || f === "membraneConductance");
   if (wantsMembrane) {
@@ -106,6 +107,6 @@ export function spectrumWarnings(x: Inputs): SpectrumWarning[] {
     }
   }
   if (x.relativeRms > POOR_FIT_RELATIVE_RMS)
-    out.push({ code: "poor-fit", message: `The fitted curve misses the data by ${(x.relativeRms * 100).toFixed(0)} % of their range (RMS); above ${POOR_FIT_RELATIVE_RMS * 100} % the model or the setup (Γ, voltage, field, radius, medium) does not describe this cell.` });
+    out.push({ code: "poor-fit", message: `The fitted curve misses the data by ${formatPercentFixed(x.relativeRms, 0)} of their range (RMS); above ${formatPercent(POOR_FIT_RELATIVE_RMS)} the model or the setup (Γ, voltage, field, radius, medium) does not describe this cell.` });
   return out;
 }

@@ -15,6 +15,8 @@ import { hz } from "./text";
 import { formatIn } from "@/lib/units/lab";
 import { MODEL_PREDICTION_WARNING, type PlannerWarning } from "./warnings";
 import { rankWindows, type OperatingWindow, type WindowContext } from "./windows";
+import { formatOsmolality, formatPercentFixed, formatPlain, formatVelocity } from "@/lib/units/format";
+import { tidy } from "@/lib/units/number";
 
 /** Planner version (semver), saved with results next to the engine version. */
 export const PLANNER_VERSION = "1.0.0";
@@ -70,7 +72,7 @@ export interface WindowsResult {
 }
 
 const round4 = (a: ArrayLike<number>) => Array.from(a, (x) => Math.round(x * 1e4) / 1e4);
-const sig4 = (a: ArrayLike<number>) => Array.from(a, (x) => (Number.isFinite(x) ? Number.parseFloat(x.toPrecision(4)) : null)) as number[];
+const sig4 = (a: ArrayLike<number>) => Array.from(a, (x) => (Number.isFinite(x) ? tidy(x, 4) : null)) as number[];
 
 /**
  * The model statements every result carries.
@@ -80,8 +82,8 @@ export function assumptions(r: ResolvedRequest): string[] {
   return [
     "Re[K] from the Clausius–Mossotti factor of concentric smeared shells (Irimajiri, Hanai & Inouye 1979; Huang et al. 1992); DEP force in the dipole approximation.",
     `Each population is ${r.samples} cells drawn from the stated spreads (normal or log-normal, truncated to physical values) with seed ${r.seed}; the same inputs and seed give the same numbers.`,
-    `A cell counts as moving one way when |Re[K]| exceeds the margin ${r.separation.margin}; it counts as reaching its outlet when, in addition, its Stokes DEP speed reaches ${r.targetSpeed} m/s.`,
-    `The voltage at each point is the one that brings the slowest ${(r.separation.slowCellQuantile * 100).toFixed(0)} % of the cells that must move up to the target speed, lowered if needed to the generator limit and to the heating, transmembrane-potential and electrothermal limits.`,
+    `A cell counts as moving one way when |Re[K]| exceeds the margin ${formatPlain(r.separation.margin)}; it counts as reaching its outlet when, in addition, its Stokes DEP speed reaches ${formatVelocity(r.targetSpeed)}.`,
+    `The voltage at each point is the one that brings the slowest ${formatPercentFixed(r.separation.slowCellQuantile, 0)} of the cells that must move up to the target speed, lowered if needed to the generator limit and to the heating, transmembrane-potential and electrothermal limits.`,
     `Field gradient: ${r.field.approximation}`,
     `Medium conductivity values are at the operating temperature. ${r.heating.description} Electrothermal speed is an order-of-magnitude scaling estimate; AC electro-osmosis by frequency/conductivity regime.`,
     ...(r.holding ? [`Capture against a flow: the DEP speed of the captured cells at ${formatIn("um", r.holding.height, 3)} above the electrodes (${r.holding.heightSource}) must reach the local flow speed ${formatIn("um_s", r.holding.localFlowSpeed, 3)} of the parabolic profile u(z) = 6ū(z/H)(1 − z/H) (DEP force above the Stokes drag; wall corrections neglected).`] : []),
@@ -130,7 +132,7 @@ function globalWarnings(r: ResolvedRequest, d: Diagnosis, windows: OperatingWind
     out.push({
       code: "osmolality",
       severity: "danger",
-      message: `The medium's osmolality ${(r.osmolality * 1000).toFixed(0)} mOsm/kg is outside ${(c.osmolalityMin * 1000).toFixed(0)}–${(c.osmolalityMax * 1000).toFixed(0)} mOsm/kg, so no operating point is accepted.`,
+      message: `The medium's osmolality ${formatOsmolality(r.osmolality)} is outside ${formatOsmolality(c.osmolalityMin)} to ${formatOsmolality(c.osmolalityMax)}, so no operating point is accepted.`,
       value: r.osmolality,
       limit: r.osmolality < c.osmolalityMin ? c.osmolalityMin : c.osmolalityMax,
       advice: "Adjust the sugar content of the buffer (about 8.5 % w/v sucrose + 0.3 % w/v glucose is near 290 mOsm/kg).",

@@ -20,6 +20,7 @@ import type { SortDesign } from "./design";
 import type { GridSetup, HeatingModel, PopulationSample } from "./evaluate";
 import { particleFrom, samplePopulation } from "./populations";
 import { windowsRequestSchema, type PopulationEntry, type PopulationSpec, type WindowsRequest } from "./schema";
+import { formatLength, formatVelocity } from "@/lib/units/format";
 
 /** Defaults of the request's optional parts. */
 export const REQUEST_DEFAULTS = {
@@ -118,13 +119,13 @@ export function resolveRequest(input: WindowsRequest): ResolvedRequest {
   const temperatureC = r.medium.temperatureC ?? REQUEST_DEFAULTS.temperatureC;
   const d = r.device;
   let targetSpeed: number = DEFAULT_TARGET_SPEED.value;
-  let targetSpeedSource: string = `default ${DEFAULT_TARGET_SPEED.value} m/s: ${DEFAULT_TARGET_SPEED.reason}`;
+  let targetSpeedSource: string = `default ${formatVelocity(DEFAULT_TARGET_SPEED.value)}: ${DEFAULT_TARGET_SPEED.reason}`;
   if (d.targetDepSpeed !== undefined) {
     targetSpeed = d.targetDepSpeed;
     targetSpeedSource = "entered by the user";
   } else if (d.flowSpeed !== undefined && d.flowSpeed > 0 && d.electrodeArrayLength !== undefined) {
     targetSpeed = (d.channelHeight * d.flowSpeed) / d.electrodeArrayLength;
-    targetSpeedSource = `from the flow: a cell must cross the channel height (${d.channelHeight} m) while the flow (${d.flowSpeed} m/s) carries it along the electrode array (${d.electrodeArrayLength} m)`;
+    targetSpeedSource = `from the flow: a cell must cross the channel height (${formatLength(d.channelHeight)}) while the flow (${formatVelocity(d.flowSpeed)}) carries it along the electrode array (${formatLength(d.electrodeArrayLength)})`;
   }
   const osmolalityBand = osmolalityBandFor(r.populations.map((p) => p.spec.model));
   const constraints = resolveConstraints({ osmolalityMin: osmolalityBand.min, osmolalityMax: osmolalityBand.max, ...(r.constraints ?? {}) });
@@ -143,7 +144,7 @@ export function resolveRequest(input: WindowsRequest): ResolvedRequest {
     holding = { height, heightSource, meanFlowSpeed: d.flowSpeed, localFlowSpeed: local, crossingSpeed: crossing };
     if (local > targetSpeed) {
       targetSpeed = local;
-      targetSpeedSource = `to hold the captured cells against the flow: the local flow speed at ${height} m above the electrodes (${heightSource}) in a parabolic profile with mean ${d.flowSpeed} m/s between walls ${d.channelHeight} m apart, which is faster than crossing the channel`;
+      targetSpeedSource = `to hold the captured cells against the flow: the local flow speed at ${formatLength(height)} above the electrodes (${heightSource}) in a parabolic profile with mean ${formatVelocity(d.flowSpeed)} between walls ${formatLength(d.channelHeight)} apart, which is faster than crossing the channel`;
     }
   }
   const thermalConductivity = waterThermalConductivity(temperatureC);

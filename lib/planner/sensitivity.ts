@@ -8,6 +8,8 @@ import { presentParameters, withMean } from "./populations";
 import { buildSetup, resolveRequest, type ResolvedRequest } from "./prepare";
 import type { PopulationSpec, WindowsRequest } from "./schema";
 import { findRuns } from "./windows";
+import { formatConductivity } from "@/lib/units/format";
+import { decimals } from "@/lib/units/number";
 
 /** The window to analyse: its conductivity (S/m) and band edges (Hz). A window from `planWindows` fits. */
 export interface WindowRef {
@@ -115,6 +117,6 @@ export function sensitivity(req: WindowsRequest, window: WindowRef): Sensitivity
     items,
     dominant: top ? { populationId: top.populationId, parameter: top.parameter, swingDecades: top.swingDecades, lost: top.lost } : null,
     skipped,
-    note: `Each parameter's mean is moved by one standard deviation (CV × mean) down and up, one at a time with the same seed; band edges are re-found at ${window.conductivity} S/m on a grid of ${FINE_POINTS} frequencies (${resolution.toFixed(3)} decades apart), so shifts below that step read as zero.`,
+    note: `Each parameter's mean is moved by one standard deviation (CV × mean) down and up, one at a time with the same seed; band edges are re-found at ${formatConductivity(window.conductivity)} on a grid of ${FINE_POINTS} frequencies (${decimals(resolution, 3)} decades apart), so shifts below that step read as zero.`,
   };
 }

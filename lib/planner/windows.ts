@@ -7,6 +7,8 @@ import { acElectroosmosis, severityAgainstLimit, vrmsToVpp } from "@/lib/dielect
 import type { Constraints } from "./constraints";
 import { LIMITED_BY, type GridResult, type HeatingModel, type LimitedBy } from "./evaluate";
 import type { PlannerWarning } from "./warnings";
+import { formatFrequency, formatPercentFixed, formatPlain, formatTemperatureRise, formatVelocity, formatVolts, formatVpp } from "@/lib/units/format";
+import { decimals } from "@/lib/units/number";
 
 /** A contiguous feasible run on the grid. */
 export interface Run {
@@ -185,11 +187,11 @@ export function buildWindow(g: GridResult, ctx: WindowContext, run: Run): Operat
     voltageHeadroom: Math.max(0, Math.min(1, 1 - v / ctx.maxVoltageRms)),
   };
   const explanations = {
-    separation: `recovery × purity at the operating point = ${recovery.toFixed(3)} × ${purity.toFixed(3)}`,
-    bandWidth: `band ${width.toFixed(2)} decades wide; 1 decade or more scores 1 (robustness to drift in cells and buffer)`,
-    crossoverMargin: Number.isFinite(minMargin) ? `nearest crossover ${minMargin.toFixed(2)} decades away; 0.5 decade or more scores 1` : "no crossover of either population at this conductivity",
-    sideEffects: `largest side effect at ${(sideLoad * 100).toFixed(0)} % of its limit`,
-    voltageHeadroom: `drive uses ${((v / ctx.maxVoltageRms) * 100).toFixed(0)} % of the generator limit`,
+    separation: `recovery × purity at the operating point = ${decimals(recovery, 3)} × ${decimals(purity, 3)}`,
+    bandWidth: `band ${decimals(width, 2)} decades wide; 1 decade or more scores 1 (robustness to drift in cells and buffer)`,
+    crossoverMargin: Number.isFinite(minMargin) ? `nearest crossover ${decimals(minMargin, 2)} decades away; 0.5 decade or more scores 1` : "no crossover of either population at this conductivity",
+    sideEffects: `largest side effect at ${formatPercentFixed(sideLoad, 0)} of its limit`,
+    voltageHeadroom: `drive uses ${formatPercentFixed(v / ctx.maxVoltageRms, 0)} of the generator limit`,
   };
   const labels = { separation: "Separation", bandWidth: "Band width", crossoverMargin: "Distance to crossovers", sideEffects: "Side effects", voltageHeadroom: "Voltage headroom" };
   const scoreParts: ScorePart[] = (Object.keys(SCORE_WEIGHTS) as (keyof typeof SCORE_WEIGHTS)[]).map((name) => ({
@@ -207,40 +209,40 @@ export function buildWindow(g: GridResult, ctx: WindowContext, run: Run): Operat
     warnings.push({
       code: "voltage-limited",
       severity: "caution",
-      message: `The drive is ${LIMIT_TEXT[limitedBy]} (${vrmsToVpp(v).toFixed(1)} Vpp instead of ${Number.isFinite(needed) ? `${vrmsToVpp(needed).toFixed(1)} Vpp` : "any finite voltage"}).`,
+      message: `The drive is ${LIMIT_TEXT[limitedBy]} (${formatVpp(vrmsToVpp(v))} instead of ${Number.isFinite(needed) ? formatVpp(vrmsToVpp(needed)) : "any finite voltage"}).`,
       value: v,
       limit: Number.isFinite(needed) ? needed : null,
       advice: limitedBy === "generator" ? "Use a stronger generator or amplifier, a smaller electrode gap, or slow the flow." : "Lower the medium conductivity, slow the flow, or accept a lower recovery.",
     });
   }
-  const graded = (code: string, value: number | null, limit: number, what: string, advice: string) => {
+  const graded = (code: string, value: number | null, limit: number, what: string, advice: string, text: (x: number) => string) => {
     if (value === null) return;
     const sev = severityAgainstLimit(value, limit);
-    if (sev !== "ok") warnings.push({ code, severity: sev, message: `${what} is ${value.toPrecision(2)}, ${((value / limit) * 100).toFixed(0)} % of the limit ${limit}.`, value, limit, advice });
+    if (sev !== "ok") warnings.push({ code, severity: sev, message: `${what} is ${text(value)}, ${formatPercentFixed(value / limit, 0)} of the limit ${text(limit)}.`, value, limit, advice });
   };
-  graded("temperature-rise", dT, c.maxTemperatureRise, ctx.heating.checked === "array" ? "Predicted Joule temperature rise over the electrode array (K, array estimate)" : "Predicted Joule temperature rise (K)", "Lower the conductivity or the voltage, or cool the chip.");
+  graded("temperature-rise", dT, c.maxTemperatureRise, ctx.heating.checked === "array" ? "Predicted Joule temperature rise over the electrode array (array estimate)" : "Predicted Joule temperature rise", "Lower the conductivity or the voltage, or cool the chip.", (x) => formatTemperatureRise(x, 2));
   if (ctx.holdingSpeed !== null && limitedBy !== "speed") {
     warnings.push({
       code: "holding",
       severity: "warning",
-      message: `At ${vrmsToVpp(v).toFixed(1)} Vpp not every captured cell is held: holding against the local flow (${(ctx.holdingSpeed * 1e6).toPrecision(3)} µm/s at the evaluation height) needs ${Number.isFinite(needed) ? `${vrmsToVpp(needed).toFixed(1)} Vpp` : "more than any voltage gives"}; the recovery shown counts only the cells that are held.`,
+      message: `At ${formatVpp(vrmsToVpp(v))} not every captured cell is held: holding against the local flow (${formatVelocity(ctx.holdingSpeed)} at the evaluation height) needs ${Number.isFinite(needed) ? formatVpp(vrmsToVpp(needed)) : "more than any voltage gives"}; the recovery shown counts only the cells that are held.`,
       value: v,
       limit: Number.isFinite(needed) ? needed : null,
       advice: "Slow the flow (the DEP speed needed equals the local flow speed), trap lower in the channel, or use a smaller electrode gap.",
     });
   }
-  graded("electrothermal-flow", et, c.maxElectrothermalRatio, "Electrothermal flow speed relative to the DEP speed (order of magnitude)", "Lower the conductivity or voltage; watch for circulating flow above the electrodes.");
-  graded("transmembrane-potential", tmp, c.maxTransmembranePotential, "Induced transmembrane potential on the target cells (V, peak)", "Raise the frequency or lower the voltage to protect the membranes.");
+  graded("electrothermal-flow", et, c.maxElectrothermalRatio, "Electrothermal flow speed relative to the DEP speed (order of magnitude)", "Lower the conductivity or voltage; watch for circulating flow above the electrodes.", (x) => formatPlain(x, 2));
+  graded("transmembrane-potential", tmp, c.maxTransmembranePotential, "Induced transmembrane potential on the target cells (peak)", "Raise the frequency or lower the voltage to protect the membranes.", (x) => formatVolts(x, 2));
   if (aceo.regime !== "unlikely") {
     warnings.push({ code: "ac-electroosmosis", severity: aceo.severity === "warning" ? "warning" : "caution", message: aceo.message, value: fop, limit: null, advice: "Prefer a higher frequency or conductivity, or check on the bench that cells are not swept by electrode flows." });
   }
   for (const m of margins) {
     if (m.marginDecades !== null && m.marginDecades < 0.2) {
-      warnings.push({ code: "crossover-near", severity: "caution", message: `The operating frequency is ${m.marginDecades.toFixed(2)} decades from a crossover of ${m.populationId} (${m.nearestCrossover?.toPrecision(3)} Hz).`, value: m.marginDecades, limit: 0.2, advice: "Small changes in the cells or the buffer move crossovers; measure them, or choose a wider window." });
+      warnings.push({ code: "crossover-near", severity: "caution", message: `The operating frequency is ${decimals(m.marginDecades, 2)} decades from a crossover of ${m.populationId} (${m.nearestCrossover === null || m.nearestCrossover === undefined ? "—" : formatFrequency(m.nearestCrossover)}).`, value: m.marginDecades, limit: 0.2, advice: "Small changes in the cells or the buffer move crossovers; measure them, or choose a wider window." });
     }
   }
   if (width < 0.3) {
-    warnings.push({ code: "band-narrow", severity: "caution", message: `The band is only ${width.toFixed(2)} decades wide (grid step ${step.toFixed(3)} decades).`, value: width, limit: 0.3, advice: "A narrow window is sensitive to cell-to-cell and batch variation; check the sensitivity chart." });
+    warnings.push({ code: "band-narrow", severity: "caution", message: `The band is only ${decimals(width, 2)} decades wide (grid step ${decimals(step, 3)} decades).`, value: width, limit: 0.3, advice: "A narrow window is sensitive to cell-to-cell and batch variation; check the sensitivity chart." });
   }
   const frac = (pos: number, neg: number) => ({ positive: pos, negative: neg, between: Math.max(0, 1 - pos - neg) });
   return {
