@@ -135,7 +135,7 @@ describe("parseCrossoverCsv bad rows", () => {
     expect(reasonAt("10000,45,22,5\n", 2)[0]).toBe(
       "10000 mS/m is outside the plausible range 0.01 to 5000 mS/m (from near-pure water to above physiological saline); check the number and the unit in the header",
     );
-    expect(reasonAt("10,0.5,22,5\n", 2)[0]).toMatch(/0.5 kHz is outside the plausible range 1 to 1e6 kHz/);
+    expect(reasonAt("10,0.5,22,5\n", 2)[0]).toMatch(/0.5 kHz is outside the plausible range 1 to 1 × 10⁶ kHz/);
     expect(reasonAt("10,45,95,5\n", 2)[0]).toMatch(/95 °C is outside the plausible range 0 to 60 °C/);
     expect(reasonAt("10,45,22,0.01\n", 2)[0]).toMatch(/0.01 µm is outside the plausible range 0.1 to 500 µm/);
     expect(reasonAt("10,45,-4,5\n", 2)[0]).toMatch(/-4 °C is outside/);
