@@ -1,10 +1,13 @@
 import { DomainError, InputError } from "@/lib/errors";
 import { asOutage } from "./outage";
 
-/** What every server action returns to its form: success, or messages keyed by field. */
+/**
+ * What every server action returns to its form: success, or messages keyed by field. A failure's `code` is the domain
+ * error's code (`invalid_input`, `unauthenticated`, `forbidden`, `not_found`, `conflict`, … or `internal`).
+ */
 export type ActionResult<T = undefined> =
   | { ok: true; message?: string; data?: T }
-  | { ok: false; message: string; fieldErrors?: Record<string, string> };
+  | { ok: false; message: string; fieldErrors?: Record<string, string>; code?: string };
 
 /**
  * Runs an action body and turns domain errors into a form-friendly result (unknown errors are logged, and the user is
@@ -19,10 +22,10 @@ export async function runAction<T>(body: () => Promise<ActionResult<T>>): Promis
     if (err instanceof InputError) {
       const fieldErrors: Record<string, string> = {};
       for (const issue of err.issues) fieldErrors[issue.path || "form"] ??= issue.message;
-      return { ok: false, message: err.message, fieldErrors };
+      return { ok: false, message: err.message, fieldErrors, code: err.code };
     }
-    if (err instanceof DomainError) return { ok: false, message: err.message };
+    if (err instanceof DomainError) return { ok: false, message: err.message, code: err.code };
     console.error("Unhandled action error", err);
-    return { ok: false, message: "Something went wrong on the server; nothing was saved. The error has been logged." };
+    return { ok: false, message: "Something went wrong on the server; nothing was saved. The error has been logged.", code: "internal" };
   }
 }

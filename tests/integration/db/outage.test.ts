@@ -75,7 +75,7 @@ describe("database outage", () => {
       await mod.db("users").insert({ email: "x@example.test", name: "x", role: "developer", password_hash: "x" });
       return { ok: true };
     });
-    expect(result).toEqual({ ok: false, message: expect.stringMatching(/database is unavailable at the moment; nothing was read or saved/) });
+    expect(result).toEqual({ ok: false, code: "service_unavailable", message: expect.stringMatching(/database is unavailable at the moment; nothing was read or saved/) });
 
     const pageError = await mod.findUserById(1).catch((e: unknown) => e);
     expect((pageError as { digest?: string }).digest).toBe(mod.DB_UNAVAILABLE_DIGEST);
