@@ -140,7 +140,7 @@ export const AUTHZ_MATRIX: readonly MatrixRow[] = [
   page("/review",                                                               "R   R   A   R   A   R"),
   page("/bench",                                                                "R   R   R   A   A   R"),
   page("/bench/[versionId]",                                                    "R   A   A   A   A   R", "/bench/{approvedVersion}"),
-  page("/bench/[versionId]",                                                    "R   N   N   N   N   R", "/bench/{draftVersion}", "a draft is never at the bench"),
+  page("/bench/[versionId]",                                                    "R   A   A   N   A   R", "/bench/{draftVersion}", "technicians never see a draft; readers see its state"),
   // Oversight and administration
   page("/audit",                                                                "R   R   A   R   A   A"),
   page("/mail",                                                                 "R   R   R   R   A   A"),

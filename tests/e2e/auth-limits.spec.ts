@@ -40,6 +40,8 @@ test("next-auth answers a malformed or foreign callbackUrl without a server erro
     const res = await request.get(`/api/auth/signin?callbackUrl=${encodeURIComponent(bad)}`, { maxRedirects: 0 });
     expect(res.status(), bad).toBeLessThan(500);
     expect(res.headers().location ?? "", bad).not.toContain("evil.example");
+    // the redirect goes to the address the browser uses (the base URL), never to a "localhost" Next substituted
+    if (res.headers().location) expect(new URL(res.headers().location, baseURL).origin, bad).toBe(new URL(baseURL!).origin);
   }
   const withBadCookie = await playwright.request.newContext({ baseURL, extraHTTPHeaders: { cookie: "next-auth.callback-url=http%3A%2F%2F%5B%3A%3A1" } });
   const session = await withBadCookie.get("/api/auth/session", { maxRedirects: 0 });
