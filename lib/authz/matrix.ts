@@ -94,7 +94,7 @@ const route = (method: RouteMethod, path: string, letters: string, sample?: stri
 const action = (module: string, name: string, letters: string, note?: string): ActionRow => ({ kind: "action", module, name, cells: cells(letters), note });
 
 const PROTOCOLS = "lib/protocols/actions.ts";
-const WIZARD = "lib/planner-wizard/actions.ts";
+const WIZARD = "lib/wizard/drafts/actions.ts";
 const LIBRARY = "lib/library/actions.ts";
 const USERS = "lib/users/actions.ts";
 const TOKENS = "lib/tokens/actions.ts";

@@ -2,7 +2,7 @@ import { expect, test, type APIRequestContext, type APIResponse } from "@playwri
 import { db } from "@/db/knex";
 import { SPECTRA_EXAMPLE, SWEEP_EXAMPLE } from "@/lib/api/examples";
 import { ACTORS, rowLabel, rowsOf, type Actor, type MatrixRow, type Outcome, type SAMPLE_PLACEHOLDERS } from "@/lib/authz/matrix";
-import { startDraft } from "@/lib/planner-wizard/service";
+import { startDraft } from "@/lib/wizard/drafts/service";
 import { findUserById } from "@/lib/users/repo";
 import { DEMO, DEMO_PASSWORD } from "./support/auth";
 import { releaseDb } from "./support/db";

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { can, ROLES, type Capability, type Role } from "@/lib/auth/roles";
 import { ACTORS, rowLabel, rowsOf, type Actor, type Outcome } from "@/lib/authz/matrix";
 import { ForbiddenError, UnauthenticatedError } from "@/lib/errors";
-import { startDraft } from "@/lib/planner-wizard/service";
+import { startDraft } from "@/lib/wizard/drafts/service";
 import { createProtocol } from "@/lib/protocols/service";
 import { findUserById, insertUser, type User } from "@/lib/users/repo";
 import { yeastProtocolContent } from "@/tests/support/protocol-content";
