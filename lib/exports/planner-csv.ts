@@ -1,6 +1,6 @@
 /**
  * Planner results as CSV for spreadsheets and scripts: the sweep map in long format (one row per frequency ×
- * conductivity point), the window table, and the spectra of both populations. Numbers in SI at full precision,
+ * conductivity point), the window table, and the spectra of both populations. Numbers in SI to 10 significant figures,
  * the unit in every header. Pure: builds text only.
  */
 import { toCsv } from "@/lib/format/csv";

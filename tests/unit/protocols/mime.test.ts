@@ -24,5 +24,6 @@ describe("CSV export", () => {
   it("quotes per RFC 4180 and defuses spreadsheet formulas", () => {
     expect(toCsv([["a", "b"], ["1,5", 'say "hi"']])).toBe('a,b\r\n"1,5","say ""hi"""\r\n');
     expect(toCsv([["=SUM(A1)", -2, null, "line\nbreak"]])).toBe(`'=SUM(A1),-2,,"line\nbreak"\r\n`);
+    expect(toCsv([[0.1 + 0.2, 12589.254117941673, 4.166666666666667e-6]])).toBe("0.3,12589.25412,0.000004166666667\r\n");
   });
 });
