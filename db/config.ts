@@ -3,18 +3,37 @@ import type { Knex } from "knex";
 import { migrationSource } from "./migrations/index";
 
 /**
- * Knex configuration from the environment (DB_HOST, DB_PORT, DB_USER, DB_PASSWORD, DB_NAME).
- * @example const db = knex(dbConfig());
+ * Which database account a handle uses. "app": DB_USER / DB_PASSWORD, the restricted account the web app, the outbox
+ * sender and the tests' code under test run with (no DDL, no UPDATE/DELETE on audit_events and signatures).
+ * "migrator": DB_MIGRATOR_USER / DB_MIGRATOR_PASSWORD, the account that owns the schema (migrations, grants, backups);
+ * when DB_MIGRATOR_USER is unset it falls back to the app account (an installation with one account).
  */
-export function dbConfig(overrides: { database?: string } = {}): Knex.Config {
+export type DbAccount = "app" | "migrator";
+
+/**
+ * User name and password of one account, from the environment.
+ * @example dbCredentials("migrator") // { user: "sievewright_migrator", password: "…" }
+ */
+export function dbCredentials(account: DbAccount, env: NodeJS.ProcessEnv = process.env): { user: string; password: string } {
+  if (account === "migrator" && env.DB_MIGRATOR_USER) return { user: env.DB_MIGRATOR_USER, password: env.DB_MIGRATOR_PASSWORD ?? "" };
+  return { user: env.DB_USER ?? "sievewright", password: env.DB_PASSWORD ?? "sievewright-local" };
+}
+
+/**
+ * Knex configuration from the environment (DB_HOST, DB_PORT, DB_NAME and the chosen account's credentials).
+ * @example const db = knex(dbConfig());                       // the app account
+ * @example const admin = knex(dbConfig({ account: "migrator" })); // schema changes
+ */
+export function dbConfig(overrides: { database?: string; account?: DbAccount } = {}): Knex.Config {
   const root = process.cwd();
+  const { user, password } = dbCredentials(overrides.account ?? "app");
   return {
     client: "mysql2",
     connection: {
       host: process.env.DB_HOST ?? "127.0.0.1",
       port: Number(process.env.DB_PORT ?? 3307),
-      user: process.env.DB_USER ?? "sievewright",
-      password: process.env.DB_PASSWORD ?? "sievewright-local",
+      user,
+      password,
       database: overrides.database ?? process.env.DB_NAME ?? "sievewright",
       charset: "utf8mb4",
       timezone: "Z",

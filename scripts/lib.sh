@@ -32,12 +32,19 @@ ensure_node_modules() {
   fi
 }
 
-# ensure_env — writes .env from .env.example with a generated secret if there is none.
+# ensure_env — writes .env from .env.example with a generated secret if there is none; adds the migrator account
+# (DB_MIGRATOR_USER, DB_MIGRATOR_PASSWORD with a generated password) to an .env written before the accounts were split.
 ensure_env() {
+  local gen='console.log(require("crypto").randomBytes(32).toString("base64url"))'
   if [ ! -f "$ROOT/.env" ]; then
-    local secret; secret="$(node -e 'console.log(require("crypto").randomBytes(32).toString("base64url"))')"
-    sed "s|^NEXTAUTH_SECRET=.*|NEXTAUTH_SECRET=$secret|" "$ROOT/.env.example" > "$ROOT/.env"
-    say "Wrote .env from .env.example with a new NEXTAUTH_SECRET"
+    local secret migrator; secret="$(node -e "$gen")"; migrator="$(node -e "$gen")"
+    sed -e "s|^NEXTAUTH_SECRET=.*|NEXTAUTH_SECRET=$secret|" -e "s|^DB_MIGRATOR_PASSWORD=.*|DB_MIGRATOR_PASSWORD=$migrator|" \
+      "$ROOT/.env.example" > "$ROOT/.env"
+    say "Wrote .env from .env.example with a new NEXTAUTH_SECRET and migrator password"
+  elif ! grep -q '^DB_MIGRATOR_USER=' "$ROOT/.env"; then
+    printf '\n# Database account for migrations (README, "Security"); the app runs as DB_USER with fewer rights.\nDB_MIGRATOR_USER=sievewright_migrator\nDB_MIGRATOR_PASSWORD=%s\n' \
+      "$(node -e "$gen")" >> "$ROOT/.env"
+    say "Added the migrator database account (DB_MIGRATOR_USER) to .env"
   fi
 }
 
@@ -45,7 +52,7 @@ ensure_env() {
 port_free() { ! (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
 
 # db_start DATADIR PORT — initialises (if needed) and starts a project-local MariaDB on loopback.
-# Sets DB_PID. Creates database $DB_NAME and user $DB_USER/$DB_PASSWORD.
+# Sets DB_PID. Creates database $DB_NAME and its two accounts (db_accounts).
 db_start() {
   local dir="$1" port="$2"
   mkdir -p "$dir/run"
@@ -72,11 +79,28 @@ db_start() {
       die "MariaDB did not start (log: $dir/mariadb.err). If the data folder is damaged, move $dir away and run again."
     fi
   done
-  db_sql "$dir" "CREATE DATABASE IF NOT EXISTS \`$DB_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
-CREATE USER IF NOT EXISTS '$DB_USER'@'127.0.0.1' IDENTIFIED BY '$DB_PASSWORD';
-GRANT ALL PRIVILEGES ON \`$DB_NAME\`.* TO '$DB_USER'@'127.0.0.1';
-GRANT ALL PRIVILEGES ON \`${DB_NAME}_%\`.* TO '$DB_USER'@'127.0.0.1'; FLUSH PRIVILEGES;"
+  db_accounts "$dir" "$DB_NAME"
   say "MariaDB listening on 127.0.0.1:$port (pid $DB_PID, data $dir/mariadb)"
+}
+
+# db_accounts DATADIR DATABASE — creates DATABASE (if needed) and the two accounts (README, "Security"):
+#   the migrator $DB_MIGRATOR_USER: every privilege on DATABASE, with GRANT OPTION (migrations, grants, backups);
+#   the app $DB_USER: nothing here — after each migration the migrator grants it row privileges table by table
+#   (db/grants.ts): no DROP, ALTER, CREATE, TRIGGER or TRUNCATE, no UPDATE/DELETE on audit_events and signatures.
+# Passwords follow the environment on every start. With DB_MIGRATOR_USER unset (or equal to DB_USER) the one
+# account gets every privilege, as before the split.
+db_accounts() {
+  local dir="$1" name="$2" app="'$DB_USER'@'127.0.0.1'" migrator="'${DB_MIGRATOR_USER:-}'@'127.0.0.1'"
+  local sql="CREATE DATABASE IF NOT EXISTS \`$name\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+CREATE USER IF NOT EXISTS $app IDENTIFIED BY '$DB_PASSWORD'; ALTER USER $app IDENTIFIED BY '$DB_PASSWORD';"
+  if [ -z "${DB_MIGRATOR_USER:-}" ] || [ "$DB_MIGRATOR_USER" = "$DB_USER" ]; then
+    sql="$sql GRANT ALL PRIVILEGES ON \`$name\`.* TO $app;"
+  else
+    sql="$sql REVOKE ALL PRIVILEGES, GRANT OPTION FROM $app;
+CREATE USER IF NOT EXISTS $migrator IDENTIFIED BY '$DB_MIGRATOR_PASSWORD'; ALTER USER $migrator IDENTIFIED BY '$DB_MIGRATOR_PASSWORD';
+GRANT ALL PRIVILEGES ON \`$name\`.* TO $migrator WITH GRANT OPTION;"
+  fi
+  db_sql "$dir" "$sql FLUSH PRIVILEGES;" || die "Creating database $name and its accounts failed."
 }
 
 # db_sql DATADIR SQL — runs SQL as the local root over the socket.

@@ -11,6 +11,9 @@ RUN_DIR="$ROOT/.data/test-$$"
 REPORTS="$RUN_DIR/reports"; mkdir -p "$REPORTS"
 export CI="${CI:-}" SIEVEWRIGHT_TEST=1 NEXT_TELEMETRY_DISABLED=1
 export DB_HOST=127.0.0.1 DB_PORT="${TEST_DB_PORT:-3317}" DB_USER=sw_test DB_PASSWORD=sw-test-pass DB_NAME=sw_e2e
+# Two accounts as in production: migrations (and the tests' own set-up) run as the migrator; the app, the outbox sender
+# and the code under test run as sw_test, which has row privileges only (README, "Security").
+export DB_MIGRATOR_USER=sw_test_migrator DB_MIGRATOR_PASSWORD=sw-test-migrator-pass
 export APP_PORT="${TEST_APP_PORT:-3100}"
 export NEXTAUTH_URL="http://127.0.0.1:$APP_PORT" NEXTAUTH_SECRET=test-secret-not-for-production
 export APP_BASE_URL="http://127.0.0.1:$APP_PORT"
@@ -31,8 +34,7 @@ trap cleanup INT TERM EXIT
 
 db_start "$RUN_DIR" "$DB_PORT"; PIDS+=("$DB_PID")
 s3_fake_start "$RUN_DIR/s3"; PIDS+=("$S3_PID")
-db_sql "$RUN_DIR" "CREATE DATABASE IF NOT EXISTS sw_it CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
-GRANT ALL PRIVILEGES ON sw_it.* TO '$DB_USER'@'127.0.0.1'; FLUSH PRIVILEGES;"
+db_accounts "$RUN_DIR" sw_it
 
 node scripts/build-workers.mjs || die "Building the worker threads (bench-sheet PDFs) failed."
 

@@ -12,6 +12,8 @@ import * as m310 from "./20261202_310_user_sessions";
 import * as m320 from "./20261202_320_password_links";
 import * as m400 from "./20261203_400_rate_windows";
 import * as m700 from "./20261203_700_fit_data_in_store";
+import * as m1203_300 from "./20261203_300_signed_records";
+import * as m1203_310 from "./20261203_310_audit_chain";
 
 /**
  * Every migration, in order. Adding one: create `db/migrations/<date>_<nnn>_<name>.ts` exporting `up` and `down`,
@@ -31,6 +33,8 @@ const MIGRATIONS: [string, Knex.Migration][] = [
   ["20261202_320_password_links", m320],
   ["20261203_400_rate_windows", m400],
   ["20261203_700_fit_data_in_store", m700],
+  ["20261203_300_signed_records", m1203_300],
+  ["20261203_310_audit_chain", m1203_310],
 ];
 
 /** Knex migration source backed by the list above. */

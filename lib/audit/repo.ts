@@ -1,5 +1,6 @@
 import type { Knex } from "knex";
 import { db } from "@/db/knex";
+import { appendToChain } from "./chain";
 
 /** One entry of the append-only audit trail, as the app sees it. */
 export interface AuditEvent {
@@ -27,20 +28,23 @@ export interface AuditInput {
 }
 
 /**
- * Appends an audit event inside the caller's transaction (so it commits or rolls back with the change).
+ * Appends an audit event at the end of the hash chain (lib/audit/chain.ts) inside the caller's transaction, so it
+ * commits or rolls back with the change; called with the plain handle, it runs in a transaction of its own.
  * @example await recordAudit(trx, { actor, action: "user.create", entityType: "user", entityId: 7, summary: "Created …" });
  */
 export async function recordAudit(trx: Knex | Knex.Transaction, input: AuditInput): Promise<void> {
-  await trx("audit_events").insert({
-    actor_id: input.actor?.id ?? null,
-    actor_email: input.actor?.email ?? null,
+  const event = {
+    actorId: input.actor?.id ?? null,
+    actorEmail: input.actor?.email ?? null,
     action: input.action,
-    entity_type: input.entityType,
-    entity_id: String(input.entityId),
+    entityType: input.entityType,
+    entityId: String(input.entityId),
     summary: input.summary,
-    before_json: input.before === undefined ? null : JSON.stringify(input.before),
-    after_json: input.after === undefined ? null : JSON.stringify(input.after),
-  });
+    beforeJson: input.before === undefined ? null : JSON.stringify(input.before),
+    afterJson: input.after === undefined ? null : JSON.stringify(input.after),
+  };
+  if ((trx as Knex.Transaction).isTransaction) await appendToChain(trx as Knex.Transaction, event);
+  else await trx.transaction((own) => appendToChain(own, event));
 }
 
 /** Filters for the audit-trail page and its CSV export. */

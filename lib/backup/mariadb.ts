@@ -1,8 +1,12 @@
 import { spawn } from "node:child_process";
 import { createReadStream, createWriteStream } from "node:fs";
 import { pipeline } from "node:stream/promises";
+import { dbCredentials } from "@/db/config";
 
-/** How the backup tools reach MariaDB: DB_BACKUP_USER / DB_BACKUP_PASSWORD when set, else the app's DB_* settings. */
+/**
+ * How the backup tools reach MariaDB: DB_BACKUP_USER / DB_BACKUP_PASSWORD when set, else the migrator account
+ * (DB_MIGRATOR_USER; the app account may not read triggers nor recreate tables).
+ */
 export interface DumpTarget {
   host: string;
   port: number;
@@ -19,8 +23,7 @@ export function dumpTarget(env: NodeJS.ProcessEnv = process.env): DumpTarget {
   return {
     host: env.DB_HOST ?? "127.0.0.1",
     port: Number(env.DB_PORT ?? 3307),
-    user: env.DB_BACKUP_USER || env.DB_USER || "sievewright",
-    password: env.DB_BACKUP_USER ? (env.DB_BACKUP_PASSWORD ?? "") : (env.DB_PASSWORD ?? "sievewright-local"),
+    ...(env.DB_BACKUP_USER ? { user: env.DB_BACKUP_USER, password: env.DB_BACKUP_PASSWORD ?? "" } : dbCredentials("migrator", env)),
     database: env.DB_NAME ?? "sievewright",
   };
 }

@@ -5,6 +5,7 @@ import path from "node:path";
 import { promisify } from "node:util";
 import knexFactory from "knex";
 import { dbConfig } from "@/db/config";
+import { applyAppGrants } from "@/db/grants";
 import { ConflictError, InputError } from "@/lib/errors";
 import { KEY_PREFIXES, deleteObject, listObjects, putObject, sha256Hex } from "@/lib/storage";
 import { manifestSchema, type BackupManifest } from "./manifest";
@@ -49,13 +50,14 @@ async function storedKeys(): Promise<string[]> {
 /**
  * Restores an archive made by createBackup: checks the manifest and every checksum first, refuses a database that
  * has tables or a bucket that has objects unless `force`, then (with force) drops every table, loads the dump,
- * writes every object (its SHA-256 checked again) and removes objects the archive does not have.
+ * grants the app account its row privileges again, writes every object (its SHA-256 checked again) and removes
+ * objects the archive does not have. Runs as the migrator account (DB_MIGRATOR_USER).
  * @example await restoreBackup(".data/backups/sievewright-backup-20261202T070509Z.tar.gz", { force: true })
  */
 export async function restoreBackup(archive: string, options: { force?: boolean } = {}): Promise<{ tables: number; objects: number }> {
   const work = await mkdtemp(path.join(tmpdir(), "sw-restore-"));
   const target = dumpTarget();
-  const conn = knexFactory({ ...dbConfig(), pool: { min: 0, max: 1 } });
+  const conn = knexFactory({ ...dbConfig({ account: "migrator" }), pool: { min: 0, max: 1 } });
   try {
     try {
       await exec("tar", ["-xzf", path.resolve(archive), "-C", work, "--no-same-owner", "--no-same-permissions"]);
@@ -78,6 +80,7 @@ export async function restoreBackup(archive: string, options: { force?: boolean 
       });
     }
     await loadDump(target, path.join(work, "database.sql"));
+    await applyAppGrants(conn);
 
     for (const o of manifest.objects) {
       const stored = await putObject(o.key, objects.get(o.key)!, o.contentType);

@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import type { Transporter } from "nodemailer";
 import { db } from "@/db/knex";
+import { redactPasswordLinks } from "@/lib/users/link-redaction";
 import { mailFrom } from "./transport";
 
 /**
@@ -112,6 +113,7 @@ export async function sendClaimed(transport: Transporter, claim: Claim, opts: Se
         deadlineMs,
       );
       await retryOnDeadlock(() => mine().update({
+        ...withoutLinkTokens(row),
         status: "sent",
         attempts: row.attempts + 1,
         sent_at: db.fn.now(3),
@@ -124,6 +126,7 @@ export async function sendClaimed(transport: Transporter, claim: Claim, opts: Se
     } catch (err) {
       const attempts = row.attempts + 1;
       await retryOnDeadlock(() => mine().update({
+        ...(attempts >= MAX_ATTEMPTS ? withoutLinkTokens(row) : {}),
         status: attempts >= MAX_ATTEMPTS ? "failed" : "pending",
         attempts,
         last_error: String((err as Error)?.message ?? err).slice(0, 2000),
@@ -135,6 +138,14 @@ export async function sendClaimed(transport: Transporter, claim: Claim, opts: Se
     }
   }
   return { sent, failed, skipped };
+}
+
+/**
+ * The stored bodies once a message is done with (sent, or given up): set-password and reset link tokens withheld, so
+ * mail_outbox never keeps a working link after the one delivery that needed it.
+ */
+function withoutLinkTokens(row: OutboxRow): { body_text: string; body_html: string } {
+  return { body_text: redactPasswordLinks(row.body_text), body_html: redactPasswordLinks(row.body_html) };
 }
 
 /**

@@ -106,6 +106,8 @@ test("developer submits, reviewer returns, developer revises, reviewer signs off
   await snap(sam, "journey2-09-mail");
   await sam.goto(`/audit?entity=protocol_version`);
   await expect(sam.getByTestId("audit-table")).toContainText(`${data.code} v2: signed off by Quinn Abara`);
+  await expect(sam.getByTestId("audit-chain")).toHaveAttribute("data-state", "intact"); // hash chain recomputed, no break
+  await expect(sam.getByTestId("audit-chain")).toContainText(/Hash chain intact: [\d\u2009]+ events checked/);
   await snap(sam, "journey2-10-audit");
   const csv = await sam.request.get(`/api/v1/audit.csv?entity=protocol_version&action=protocol_version.approve`);
   expect(csv.status()).toBe(200);

@@ -5,7 +5,7 @@ import { buildBenchSheet } from "@/lib/bench-sheet/layout";
 import { renderBenchSheet } from "@/lib/bench-sheet/render";
 import { loadSheetSourceByNumber } from "@/lib/bench-sheet/source";
 import { BENCH_CONTENT_HASH, insertBenchVersion, type InsertedVersion } from "@/tests/support/bench-fixture";
-import { closeDb, db, freshSchema } from "./support/db";
+import { behindTheAppsBack, closeDb, db, freshSchema } from "./support/db";
 
 /** Text as extracted, NFKC-normalised (pdf.js returns µ as Greek mu, ₂₅ as 25) with whitespace runs collapsed. */
 const norm = (s: string) => s.normalize("NFKC").replace(/\s+/g, " ");
@@ -83,7 +83,7 @@ describe("bench sheet PDF from a stored version", () => {
     const row = await db("protocol_versions").where({ id: tampered.versionId }).first("content_json");
     const content = typeof row.content_json === "string" ? JSON.parse(row.content_json) : row.content_json;
     content.selection.voltageVpp = 19.9;
-    await db("protocol_versions").where({ id: tampered.versionId }).update({ content_json: JSON.stringify(content) });
+    await behindTheAppsBack("protocol_versions", (m) => m("protocol_versions").where({ id: tampered.versionId }).update({ content_json: JSON.stringify(content) }));
     const source = await loadSheetSourceByNumber(reviewer, tampered.protocolId, tampered.number);
     const { pages } = await pdfText(await renderBenchSheet(buildBenchSheet(source, { volumeMl: 100, paper: "a4", printedAt })));
     pages.forEach((page) => expect(page).toContain("NOT FOR BENCH USE"));

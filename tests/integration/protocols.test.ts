@@ -15,7 +15,7 @@ import { approveVersion, retireVersion, returnVersion } from "@/lib/protocols/re
 import { createProtocol, newVersion, submitVersion, updateDraft, updateDraftDetails, type Actor } from "@/lib/protocols/service";
 import { createUser, setUserRole } from "@/lib/users/service";
 import { yeastProtocolContent } from "@/tests/support/protocol-content";
-import { closeDb, db, freshSchema } from "./support/db";
+import { behindTheAppsBack, closeDb, db, freshSchema, migrator } from "./support/db";
 
 const PASSWORD = "integration-pass-1";
 const people: Record<string, Actor> = {};
@@ -196,17 +196,21 @@ describe("protocol versions against MariaDB", () => {
 
   it("shows a hash mismatch when signed content is changed behind the application's back", async () => {
     const { protocol, v1 } = await approvedProtocol("Tamper check", dana, quinn);
-    await db.raw("UPDATE protocol_versions SET content_json = JSON_SET(content_json, '$.selection.voltageVpp', 19) WHERE id = ?", [v1.id]);
+    const tamper = (conn: typeof db) => conn.raw("UPDATE protocol_versions SET content_json = JSON_SET(content_json, '$.selection.voltageVpp', 19) WHERE id = ?", [v1.id]);
+    await expect(tamper(db)).rejects.toThrow(/signed content of a version cannot be changed/);
+    await behindTheAppsBack("protocol_versions", tamper);
     const view = await getVersionView(sam, protocol.id, 1);
     expect(view.integrity.ok).toBe(false);
     expect(view.integrity.problems.join(" ")).toMatch(/quinn qa signed content with hash/);
     await expect(retireVersion(quinn, { versionId: v1.id, lockVersion: v1.lockVersion, reason: "Tampered record." })).resolves.toMatchObject({ state: "retired" });
   });
 
-  it("keeps audit rows append-only: UPDATE and DELETE fail in the database", async () => {
+  it("keeps audit rows append-only: UPDATE and DELETE fail in the database (app: no grant; anyone: trigger)", async () => {
     const [event] = await listAuditEvents({ entityType: "protocol_version", limit: 1 });
-    await expect(db("audit_events").where({ id: event.id }).update({ summary: "tampered" })).rejects.toThrow(/append-only/);
-    await expect(db("audit_events").where({ id: event.id }).delete()).rejects.toThrow(/append-only/);
+    await expect(db("audit_events").where({ id: event.id }).update({ summary: "tampered" })).rejects.toThrow(/UPDATE command denied/);
+    await expect(db("audit_events").where({ id: event.id }).delete()).rejects.toThrow(/DELETE command denied/);
+    await expect(migrator("audit_events").where({ id: event.id }).update({ summary: "tampered" })).rejects.toThrow(/append-only/);
+    await expect(migrator("audit_events").where({ id: event.id }).delete()).rejects.toThrow(/append-only/);
     expect((await listAuditEvents({ entityType: "protocol_version", limit: 1 }))[0].summary).toBe(event.summary);
   });
 
@@ -215,12 +219,12 @@ describe("protocol versions against MariaDB", () => {
     const sub = await submitVersion(dana, { versionId: v1.id, lockVersion: 1 });
     const before = { mail: await db("mail_outbox").count({ n: "*" }).first(), audit: await db("audit_events").count({ n: "*" }).first() };
     // The author's sign-off mail is written after the supervisor's: refusing it makes the transaction fail midway.
-    await db.raw(`CREATE TRIGGER mail_outbox_refuse_test BEFORE INSERT ON mail_outbox FOR EACH ROW
+    await migrator.raw(`CREATE TRIGGER mail_outbox_refuse_test BEFORE INSERT ON mail_outbox FOR EACH ROW
       IF NEW.to_address = '${dana.email}' AND NEW.kind = 'version-approved' THEN SIGNAL SQLSTATE '45000' SET MESSAGE_TEXT = 'test: outbox refused'; END IF`);
     try {
       await expect(approveVersion(quinn, { versionId: v1.id, lockVersion: sub.lockVersion, meaning: "Approved for bench use", password: PASSWORD })).rejects.toThrow(/outbox refused/);
     } finally {
-      await db.raw("DROP TRIGGER mail_outbox_refuse_test");
+      await migrator.raw("DROP TRIGGER mail_outbox_refuse_test");
     }
     expect((await version(v1.id)).state).toBe("in_review");
     expect(await db("signatures").where({ version_id: v1.id }).count({ n: "*" }).first()).toEqual({ n: 0 });

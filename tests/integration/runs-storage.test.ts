@@ -6,7 +6,7 @@ import { ensureBucket, listObjects, newObjectKey, putObject } from "@/lib/storag
 import { createToken } from "@/lib/tokens/service";
 import { findUserById, insertUser } from "@/lib/users/repo";
 import { insertBenchVersion, type InsertedVersion } from "@/tests/support/bench-fixture";
-import { closeDb, db, freshSchema } from "./support/db";
+import { closeDb, db, freshSchema, migrator } from "./support/db";
 import { relay } from "./support/store-relay";
 
 /**
@@ -85,12 +85,12 @@ describe("run attachments: store first, then one transaction", () => {
   it("removes the stored objects again when the database step fails after the upload", async () => {
     const before = await counts();
     const keysBefore = await attachmentKeys();
-    await db.raw(`CREATE TRIGGER test_refuse_attachment BEFORE INSERT ON attachments FOR EACH ROW
+    await migrator.raw(`CREATE TRIGGER test_refuse_attachment BEFORE INSERT ON attachments FOR EACH ROW
       BEGIN IF NEW.file_name = 'refused.csv' THEN SIGNAL SQLSTATE '45000' SET MESSAGE_TEXT = 'refused by test'; END IF; END`);
     try {
       await expect(recordRun(tech, run(approved.versionId), [{ name: "gate.png", bytes: PNG }, { name: "refused.csv", bytes: CSV }])).rejects.toThrow(/refused by test/);
     } finally {
-      await db.raw("DROP TRIGGER test_refuse_attachment");
+      await migrator.raw("DROP TRIGGER test_refuse_attachment");
     }
     expect(await counts()).toEqual(before);
     expect(await attachmentKeys()).toEqual(keysBefore);

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { InputError, ConflictError } from "@/lib/errors";
 import { listAuditEvents } from "@/lib/audit/repo";
 import { createUser, setUserActive, setUserRole, verifyCredentials } from "@/lib/users/service";
-import { closeDb, db, freshSchema } from "./support/db";
+import { closeDb, db, freshSchema, migrator } from "./support/db";
 
 describe("user service", () => {
   let adminId = 0;
@@ -62,10 +62,12 @@ describe("user service", () => {
     await expect(setUserRole(admin(), adminId, "developer")).rejects.toBeInstanceOf(ConflictError);
   });
 
-  it("keeps audit rows append-only: an UPDATE or DELETE fails in the database", async () => {
+  it("keeps audit rows append-only: an UPDATE or DELETE fails in the database (app: no grant; anyone: trigger)", async () => {
     const [event] = await listAuditEvents({ limit: 1 });
-    await expect(db("audit_events").where({ id: event.id }).update({ summary: "tampered" })).rejects.toThrow(/append-only/);
-    await expect(db("audit_events").where({ id: event.id }).delete()).rejects.toThrow(/append-only/);
+    await expect(db("audit_events").where({ id: event.id }).update({ summary: "tampered" })).rejects.toThrow(/UPDATE command denied/);
+    await expect(db("audit_events").where({ id: event.id }).delete()).rejects.toThrow(/DELETE command denied/);
+    await expect(migrator("audit_events").where({ id: event.id }).update({ summary: "tampered" })).rejects.toThrow(/append-only/);
+    await expect(migrator("audit_events").where({ id: event.id }).delete()).rejects.toThrow(/append-only/);
     const [still] = await listAuditEvents({ limit: 1 });
     expect(still.summary).toBe(event.summary);
   });

@@ -203,4 +203,45 @@ describe("outbox sender", () => {
       transport.close();
     }
   });
+
+  it("keeps no working password link in mail_outbox once the message is sent or given up: the token is withheld", async () => {
+    const token = "Tk7-q2_ZQhV0nPj1eYxL8sRb3mWcD5aF9uGi4oKt6Es";
+    const vars = { name: "Nova", link: `http://127.0.0.1:3000/login/password/${token}`, validFor: "72 h" };
+    const free = await silentServer();
+    await free.close();
+    process.env.SMTP_PORT = String(free.port);
+    const sink = await startMailSink({ port: free.port, dir });
+    const transport = smtpTransport();
+    try {
+      await enqueueMail(db, { to: "nova@example.test", kind: "password-link", template: "password-setup", vars, dedupeKey: "link:sent" });
+      await db("mail_outbox").whereNot({ dedupe_key: "link:sent" }).update({ next_attempt_at: new Date(Date.now() + 3_600_000) });
+      const queued = await db("mail_outbox").where({ dedupe_key: "link:sent" }).first();
+      expect(queued.body_text).toContain(token); // needed until the one delivery
+      expect(await deliverDueMail(transport)).toEqual({ sent: 1, failed: 0, skipped: 0 });
+      const delivered = readCapturedMail(dir).find((m) => /nova@example\.test/.test(m.raw));
+      expect(delivered?.raw.replace(/=\r?\n/g, "")).toContain(token); // the recipient got the working link
+      const kept = await db("mail_outbox").where({ dedupe_key: "link:sent" }).first();
+      expect(kept.status).toBe("sent");
+      expect(`${kept.body_text}${kept.body_html}`).not.toContain(token);
+      expect(kept.body_text).toContain("/login/password/[withheld");
+    } finally {
+      transport.close();
+      await sink.close();
+    }
+
+    const closed = await silentServer();
+    await closed.close();
+    process.env.SMTP_PORT = String(closed.port);
+    const refused = smtpTransport();
+    try {
+      await enqueueMail(db, { to: "nova@example.test", kind: "password-link", template: "password-reset", vars, dedupeKey: "link:failed" });
+      await db("mail_outbox").where({ dedupe_key: "link:failed" }).update({ attempts: MAX_ATTEMPTS - 1 });
+      expect(await deliverDueMail(refused)).toEqual({ sent: 0, failed: 1, skipped: 0 });
+      const given = await db("mail_outbox").where({ dedupe_key: "link:failed" }).first();
+      expect(given.status).toBe("failed");
+      expect(`${given.body_text}${given.body_html}`).not.toContain(token);
+    } finally {
+      refused.close();
+    }
+  });
 });
