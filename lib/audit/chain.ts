@@ -1,14 +1,8 @@
 import type { Knex } from "knex";
-import { hashEvent } from "./hash";
+import { hashEvent, type AuditFields } from "./hash";
 
 /** What an appended event contains, before it gets its place in the chain. */
-export interface ChainInput {
-  actorId: number | null;
-  actorEmail: string | null;
-  action: string;
-  entityType: string;
-  entityId: string;
-  summary: string;
+export interface ChainInput extends AuditFields {
   /** Already serialised before/after values (JSON text) or null. */
   beforeJson: string | null;
   afterJson: string | null;

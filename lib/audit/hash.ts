@@ -6,17 +6,21 @@ export const GENESIS_HASH = "0".repeat(64);
 /** Version tag hashed with every event, so a future change of the hashed fields can be told apart. */
 const FORMAT = "sievewright-audit-v1";
 
-/** The fields of one audit event that its hash covers (as stored: JSON columns as their parsed values). */
-export interface HashedEvent {
-  seq: number;
-  prevHash: string;
-  occurredAt: Date;
+/** Who did what to which record: the descriptive fields every audit event has. */
+export interface AuditFields {
   actorId: number | null;
   actorEmail: string | null;
   action: string;
   entityType: string;
   entityId: string;
   summary: string;
+}
+
+/** The fields of one audit event that its hash covers (as stored: JSON columns as their parsed values). */
+export interface HashedEvent extends AuditFields {
+  seq: number;
+  prevHash: string;
+  occurredAt: Date;
   before: unknown;
   after: unknown;
 }

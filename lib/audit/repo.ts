@@ -1,17 +1,12 @@
 import type { Knex } from "knex";
 import { db } from "@/db/knex";
 import { appendToChain } from "./chain";
+import { parseStoredJson, type AuditFields } from "./hash";
 
 /** One entry of the append-only audit trail, as the app sees it. */
-export interface AuditEvent {
+export interface AuditEvent extends AuditFields {
   id: number;
   occurredAt: Date;
-  actorId: number | null;
-  actorEmail: string | null;
-  action: string;
-  entityType: string;
-  entityId: string;
-  summary: string;
   before: unknown;
   after: unknown;
 }
@@ -97,11 +92,6 @@ export async function latestEventOf(conn: Knex | Knex.Transaction, entityType: s
   return row ? toAuditEvent(row) : null;
 }
 
-function parseJson(value: unknown): unknown {
-  if (value === null || value === undefined) return null;
-  return typeof value === "string" ? JSON.parse(value) : value;
-}
-
 function toAuditEvent(row: Record<string, unknown>): AuditEvent {
   return {
     id: Number(row.id),
@@ -112,7 +102,7 @@ function toAuditEvent(row: Record<string, unknown>): AuditEvent {
     entityType: String(row.entity_type),
     entityId: String(row.entity_id),
     summary: String(row.summary),
-    before: parseJson(row.before_json),
-    after: parseJson(row.after_json),
+    before: parseStoredJson(row.before_json),
+    after: parseStoredJson(row.after_json),
   };
 }
