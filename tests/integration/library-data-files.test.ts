@@ -7,7 +7,8 @@ import { createItem, duplicateItem, getDataFile, getItem, reviseItem } from "@/l
 import { exportLibrary, importLibrary } from "@/lib/library/transfer";
 import { sweepStoredFiles } from "@/lib/maintenance/orphans";
 import { StorageUnavailableError, StoredObjectDamagedError, ensureBucket, listObjects, newObjectKey, putObject, readObject, sha256Hex, storageConfig } from "@/lib/storage";
-import { closeDb, db, freshSchema } from "./support/db";
+import { migrateLatest } from "@/db/migrator";
+import { closeDb, db, freshSchema, migrator } from "./support/db";
 import { relay } from "./support/store-relay";
 
 /**
@@ -45,9 +46,9 @@ async function versionCount(): Promise<number> {
 /** Undoes the most recent migrations until `name` is no longer applied. */
 async function migrateDownThrough(name: string): Promise<void> {
   for (;;) {
-    const [done] = (await db.migrate.list()) as [{ name: string }[], unknown[]];
+    const [done] = (await migrator.migrate.list()) as [{ name: string }[], unknown[]];
     if (!done.some((m) => m.name === name)) return;
-    await db.migrate.down();
+    await migrator.migrate.down();
   }
 }
 
@@ -63,7 +64,7 @@ describe("fit data files in the object store", () => {
   });
   afterAll(async () => {
     process.env.S3_ENDPOINT = realEndpoint;
-    await db.migrate.rollback(undefined, true); // while this file's bucket is still set: the rows name its objects
+    await migrator.migrate.rollback(undefined, true); // while this file's bucket is still set: the rows name its objects
     process.env.S3_BUCKET = realBucket;
     await closeDb();
   });
@@ -153,7 +154,7 @@ describe("fit data files in the object store", () => {
     const legacy = "conductivity_mS_m,crossover_kHz\n10,120\n";
     await db("population_versions").where({ item_id: item.id, version: 2 }).update({ data_file_text: legacy }); // as a pre-store install left it
 
-    await db.migrate.latest();
+    await migrateLatest(migrator);
     expect(await db.schema.hasColumn("population_versions", "data_file_text")).toBe(false);
     const row = await db("population_versions").where({ item_id: item.id, version: 2 }).first("data_file_key", "data_file_sha256", "data_file_size");
     expect(row.data_file_sha256).toBe(sha256Hex(new TextEncoder().encode(legacy)));
