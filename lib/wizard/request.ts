@@ -39,6 +39,21 @@ export function mapConductivities(sigma: number): { start: number; stop: number;
   return { start: sigma / 10, stop: sigma * 10, points: 41 };
 }
 
+/** The planner's accepted electrode-array areas, m² (lib/planner/schema.ts). */
+const ARRAY_AREA_LIMITS = { min: 1e-9, max: 1e-2 };
+
+/**
+ * The electrode array's area for the array-heating estimate: an interdigitated array spans the channel's width over
+ * the array's length, so area = channel width × array length (m²). Nothing for a user Γ (no array is implied) or an
+ * area outside what the planner accepts (it then states its own assumption).
+ * @example arrayAreaOf(defaultDevice()) // { electrodeArrayArea: 2e-5 } (2 mm × 10 mm)
+ */
+export function arrayAreaOf(device: DeviceStepValues): { electrodeArrayArea?: number } {
+  if (device.geometry !== "interdigitated") return {};
+  const area = stepSI(device, "channelWidth") * stepSI(device, "arrayLength");
+  return area >= ARRAY_AREA_LIMITS.min && area <= ARRAY_AREA_LIMITS.max ? { electrodeArrayArea: area } : {};
+}
+
 /**
  * Builds the planner request (SI, `windowsRequestSchema`) from validated step inputs. A fixed buffer gives a fixed
  * conductivity (windows at that conductivity); a range gives a log sweep of 31 conductivities.
@@ -77,7 +92,7 @@ export function toWindowsRequest(r: Extract<ReadyInputs, { ok: true }>, seed = D
     targetId: "target",
     medium,
     frequencies: { ...PLAN_FREQUENCIES },
-    device: { geometry, maxVoltageVpp: device.maxVoltageVpp, ...stepFrequencyRange(device), channelHeight: stepSI(device, "channelHeight"), ...drive },
+    device: { geometry, maxVoltageVpp: device.maxVoltageVpp, ...stepFrequencyRange(device), channelHeight: stepSI(device, "channelHeight"), ...arrayAreaOf(device), ...drive },
     constraints: {
       maxTemperatureRise: limits.maxTemperatureRise,
       maxElectrothermalRatio: limits.maxElectrothermalRatio,

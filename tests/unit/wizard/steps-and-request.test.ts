@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { windowsRequestSchema } from "@/lib/planner";
+import { planWindows, windowsRequestSchema } from "@/lib/planner";
 import { bufferChoice, bufferStepSchema, defaultBuffer, toEngineRecipe } from "@/lib/wizard/buffer-form";
 import { defaultDevice, deviceStepSchema, libraryDeviceToStep, meanFlowSpeed } from "@/lib/wizard/device-form";
 import { defaultLimits, limitsStepSchema } from "@/lib/wizard/limits-form";
@@ -66,6 +66,21 @@ describe("planner request from the wizard's steps", () => {
     expect(req.medium.conductivity).toBeGreaterThan(0);
     expect(req.constraints?.minPurity).toBe(0.9);
     expect(req.sortDesign).toEqual({ kind: "capture", captured: "target" });
+  });
+
+  it("passes the interdigitated array's area (channel width × array length) for the array-heating estimate", () => {
+    const device = { ...defaultDevice(), channelWidth: 1500, arrayLength: 8 }; // 1.5 mm (in µm) × 8 mm
+    const ready = readyInputs({ ...inputs(), device });
+    if (!ready.ok) throw new Error(ready.message);
+    const req = toWindowsRequest(ready);
+    expect(req.device.electrodeArrayArea).toBeCloseTo(1.2e-5, 15); // 1.5e-3 m × 8e-3 m
+    expect(windowsRequestSchema.safeParse(req).success).toBe(true);
+    const plan = planWindows(req);
+    expect(plan.model.heating).toMatchObject({ checked: "array", arrayArea: req.device.electrodeArrayArea });
+    // A user Γ implies no array: no area is sent and the isolated-pair estimate is checked.
+    const user = readyInputs({ ...inputs(), device: { ...device, geometry: "user", gamma: 1e15, gammaSource: "COMSOL model v2" } });
+    if (!user.ok) throw new Error(user.message);
+    expect(toWindowsRequest(user).device).not.toHaveProperty("electrodeArrayArea");
   });
 
   it("searches a conductivity range when the buffer step gives one", () => {
