@@ -3,12 +3,12 @@ import {
   ACCEPTANCE_TABLE_TEMPERATURES,
   CAUTIONS,
   NOT_FOR_BENCH_MARK,
-  OSMOLALITY_ACCEPT,
   RECORD_LINES,
   SECTION_ORDER,
   SECTION_TITLES,
   type SectionId,
 } from "@/templates/bench-sheet/layout";
+import { osmolalityBandFor } from "@/lib/planner/constraints";
 import { acceptanceRange25, readingRangeAt, READING_TEMPERATURE_LIMITS } from "./acceptance";
 import { formatUtcMinute } from "@/lib/format/time";
 import {
@@ -104,6 +104,19 @@ function bufferSection(source: BenchSheetSource, options: BenchSheetOptions): Sh
   ];
 }
 
+/**
+ * What osmolality to accept for the sheet's populations and why: the band of cells without a wall (270–330 mOsm/kg)
+ * unless both populations have a wall (yeast and the like: anything up to 1000 mOsm/kg), from lib/planner.
+ * @example osmolalityAcceptance(yeastPair) // "accept up to 1000 mOsm/kg (both populations are walled cells …)"
+ */
+export function osmolalityAcceptance(populations: BenchSheetSource["content"]["populations"]): string {
+  const band = osmolalityBandFor([populations.target.spec.model, populations.other.spec.model]);
+  const max = formatOsmolality(band.max, 4);
+  return band.cells === "walled"
+    ? `accept up to ${max} (both populations are walled cells, e.g. yeast: the wall holds them in hypotonic media; common practice, value from memory)`
+    : `accept ${formatOsmolality(band.min).replace(" mOsm/kg", "")}–${max} (usual band for cells without a wall, such as mammalian cells; common practice)`;
+}
+
 function acceptanceSection(source: BenchSheetSource): SheetBlock[] {
   const { buffer, selection } = source.content;
   const target = buffer.targetConductivity25;
@@ -118,6 +131,7 @@ function acceptanceSection(source: BenchSheetSource): SheetBlock[] {
     return [formatTemperature(t) + (t === op ? " (operating)" : ""), formatMeterConductivity(r.low), formatMeterConductivity(r.high)];
   });
   const osmolality = buffer.osmolality ?? buffer.recipe?.osmolality ?? null;
+  const accept = osmolalityAcceptance(source.content.populations);
   return [
     {
       kind: "fields",
@@ -127,8 +141,8 @@ function acceptanceSection(source: BenchSheetSource): SheetBlock[] {
         {
           label: "Osmolality",
           value: osmolality === null
-            ? `not stated in this version; if measured, accept ${OSMOLALITY_ACCEPT.min}–${OSMOLALITY_ACCEPT.max} mOsm/kg`
-            : `${formatOsmolality(toSI("mOsm_kg", osmolality))} planned; if measured, accept ${OSMOLALITY_ACCEPT.min}–${OSMOLALITY_ACCEPT.max} mOsm/kg (usual band for mammalian cells, common practice)`,
+            ? `not stated in this version; if measured, ${accept}`
+            : `${formatOsmolality(toSI("mOsm_kg", osmolality))} planned; if measured, ${accept}`,
         },
       ],
     },

@@ -72,9 +72,6 @@ export const NOT_FOR_BENCH_MARK = "NOT FOR BENCH USE";
 /** Temperatures (°C) at which the acceptance table lists the conductivity readings to accept. */
 export const ACCEPTANCE_TABLE_TEMPERATURES = [20, 22, 25] as const;
 
-/** Osmolality band accepted for mammalian cells, mOsm/kg (common practice). */
-export const OSMOLALITY_ACCEPT = { min: 270, max: 330 } as const;
-
 /** Lines of the hand-filled run-record box: label, the unit written after the blank, and extra writing lines. */
 export const RECORD_LINES: { label: string; unit?: string; lines?: number }[] = [
   { label: "Date and start time" },

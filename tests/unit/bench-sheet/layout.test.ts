@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { buildBenchSheet } from "@/lib/bench-sheet/layout";
+import { buildBenchSheet, osmolalityAcceptance } from "@/lib/bench-sheet/layout";
+import { defaultPopulationSpec } from "@/lib/populations/spec";
 import { isBenchReady } from "@/lib/protocols/states";
 import { SECTION_ORDER } from "@/templates/bench-sheet/layout";
 import { fixtureSource } from "@/tests/support/bench-fixture";
@@ -40,5 +41,19 @@ describe("buildBenchSheet", () => {
     expect(s).toContain("0.0900 g (90 mg)"); // hand: 0.18 g/L × 0.5 L
     expect(s).toContain('["20 °C","81 µS/cm","99 µS/cm"]'); // hand: 90–110 µS/cm × (1 − 0.10)
     expect(s).toContain('["22 °C (operating)","84.6 µS/cm","103 µS/cm"]'); // hand: × 0.94 → 84.6–103.4
+  });
+
+  it("states the osmolality band of the sheet's own cells: the no-wall band for lymphocytes, not for a yeast pair", () => {
+    const s = text(buildBenchSheet(fixtureSource(), options));
+    expect(s).toContain("292 mOsm/kg planned; if measured, accept 270–330 mOsm/kg (usual band for cells without a wall, such as mammalian cells; common practice)");
+    const yeast = { name: "Yeast", spec: defaultPopulationSpec("walled") };
+    const walled = osmolalityAcceptance({ target: yeast, other: { ...yeast, name: "Heat-killed yeast" } } as never);
+    expect(walled).toBe("accept up to 1000 mOsm/kg (both populations are walled cells, e.g. yeast: the wall holds them in hypotonic media; common practice, value from memory)");
+    const source = fixtureSource();
+    source.content.populations.target = yeast as never;
+    source.content.populations.other = { ...yeast, name: "Heat-killed yeast" } as never;
+    const yeastSheet = text(buildBenchSheet(source, options));
+    expect(yeastSheet).not.toMatch(/mammalian/);
+    expect(yeastSheet).toContain(walled);
   });
 });
