@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { conductivityAt25, evaluateBuffer, SALTS, STOCKS, type BufferAddition, type BufferResult, type SaltKind, type StockKind } from "@/lib/dielectric";
 import { BUFFER_FIELDS as F, MAX_ADDITIONS } from "@/lib/buffers/fields";
+import { recipeFieldIssues, type RecipeFieldIssue } from "@/lib/buffers/recipe-errors";
 import { conductivityRangeIssue } from "@/lib/buffers/schema";
 import { fromSI, toSI } from "@/lib/units/lab";
 import { tidy } from "@/lib/units/number";
@@ -107,14 +108,16 @@ export function toEngineRecipe(v: BufferStepValues) {
 }
 
 /**
- * Runs the engine's recipe calculator; null when the recipe cannot be evaluated (the message says why).
+ * Runs the engine's recipe calculator; null when the recipe cannot be evaluated, with messages that name the step's
+ * fields (lib/buffers/recipe-errors.ts) in `error` and, by field path, in `issues`.
  * @example predictRecipe(defaultBuffer()).result?.conductivity25 // ≈ 0.008 S/m
  */
-export function predictRecipe(v: BufferStepValues): { result: BufferResult | null; error: string | null } {
+export function predictRecipe(v: BufferStepValues): { result: BufferResult | null; error: string | null; issues: RecipeFieldIssue[] } {
   try {
-    return { result: evaluateBuffer(toEngineRecipe(v)), error: null };
+    return { result: evaluateBuffer(toEngineRecipe(v)), error: null, issues: [] };
   } catch (err) {
-    return { result: null, error: err instanceof Error ? err.message : String(err) };
+    const issues = recipeFieldIssues(err, v.additions.map((a) => a.kind), "perLitre", { volumeL: "volumeMl" });
+    return { result: null, error: issues.map((i) => i.message).join(" "), issues };
   }
 }
 
@@ -177,8 +180,7 @@ export const bufferStepSchema = z
       ok = num("temperatureC") && ok;
       v.additions.forEach((a, i) => (ok = num("perLitre", `additions.${i}.perLitre`, a.perLitre) && ok));
       if (ok) {
-        const { error } = predictRecipe(v as BufferStepValues);
-        if (error) issue(ctx, "additions", `The recipe cannot be evaluated: ${error}.`);
+        for (const problem of predictRecipe(v as BufferStepValues).issues) issue(ctx, problem.path, problem.message);
       }
     } else if (v.mode === "measured") {
       num("measuredConductivity");

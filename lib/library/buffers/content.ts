@@ -3,6 +3,7 @@ import { evaluateBuffer, SALTS, STOCKS, type BufferAddition, type BufferResult, 
 import { formatIn, toSI, fromSI } from "@/lib/units/lab";
 import { tidy } from "@/lib/units/number";
 import { BUFFER_FIELDS as F, MAX_ADDITIONS } from "@/lib/buffers/fields";
+import { recipeFieldIssues } from "@/lib/buffers/recipe-errors";
 import { outOfRangeMessage } from "@/lib/units/lab-fields";
 import { labSchema, siNumber } from "@/lib/units/quantity-field";
 import { nameSchema, notesSchema, organisationSchema, versionMetaFormSchema } from "../schemas";
@@ -121,7 +122,8 @@ export function bufferContentToForm(c: BufferContent): Omit<BufferForm, "provena
 }
 
 /**
- * The engine's prediction for a recipe (1 L of base at 25 °C), or an explanation when it cannot be evaluated.
+ * The engine's prediction for a recipe (1 L of base at 25 °C), or an explanation naming the form's fields (line n of
+ * the additions, sucrose, glucose) when it cannot be evaluated.
  * @example predictRecipe({ sucrosePercentWV: 8.5, glucosePercentWV: 0.3, additions: [] })?.osmolality // ≈ 0.27 osmol/kg
  */
 export function predictRecipe(recipe: BufferContent["recipe"]): { result: BufferResult } | { error: string } | null {
@@ -130,7 +132,7 @@ export function predictRecipe(recipe: BufferContent["recipe"]): { result: Buffer
   try {
     return { result: evaluateBuffer({ volumeL: 1, temperatureC: 25, sucrosePercentWV: recipe.sucrosePercentWV, glucosePercentWV: recipe.glucosePercentWV, additions }) };
   } catch (err) {
-    return { error: err instanceof Error ? err.message : String(err) };
+    return { error: recipeFieldIssues(err, recipe.additions.map((a) => a.kind), "amountPerLitre").map((i) => i.message).join(" ") };
   }
 }
 
