@@ -13,7 +13,7 @@ import {
   type SpectraResult,
   type SweepRequest,
 } from "@/lib/dielectric";
-import { errorResponse } from "@/lib/http/api";
+import { errorResponse } from "@/lib/http/errors";
 import { SPECTRA_EXAMPLE, VIABLE_CELL } from "./examples";
 
 /** Sweep result as sent over JSON: `re[i * frequencies.length + j]` is conductivity i (S/m), frequency j (Hz). */

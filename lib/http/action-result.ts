@@ -1,5 +1,4 @@
-import { DomainError, InputError } from "@/lib/errors";
-import { asOutage } from "./outage";
+import { describeError } from "./errors";
 
 /**
  * What every server action returns to its form: success, or messages keyed by field. A failure's `code` is the domain
@@ -10,7 +9,7 @@ export type ActionResult<T = undefined> =
   | { ok: false; message: string; fieldErrors?: Record<string, string>; code?: string };
 
 /**
- * Runs an action body and turns domain errors into a form-friendly result (unknown errors are logged, and the user is
+ * Runs an action body and turns domain and engine errors (describeError) into a form-friendly result (unknown errors are logged, and the user is
  * told plainly that nothing was saved).
  * @example return runAction(async () => { await createUser(actor, input); return { ok: true, message: "Created" }; });
  */
@@ -18,14 +17,14 @@ export async function runAction<T>(body: () => Promise<ActionResult<T>>): Promis
   try {
     return await body();
   } catch (thrown) {
-    const err = asOutage(thrown);
-    if (err instanceof InputError) {
-      const fieldErrors: Record<string, string> = {};
-      for (const issue of err.issues) fieldErrors[issue.path || "form"] ??= issue.message;
-      return { ok: false, message: err.message, fieldErrors, code: err.code };
+    const d = describeError(thrown);
+    if (!d.expected) {
+      console.error("Unhandled action error", thrown);
+      return { ok: false, message: d.message, code: d.code };
     }
-    if (err instanceof DomainError) return { ok: false, message: err.message, code: err.code };
-    console.error("Unhandled action error", err);
-    return { ok: false, message: "Something went wrong on the server; nothing was saved. The error has been logged.", code: "internal" };
+    if (!d.issues) return { ok: false, message: d.message, code: d.code };
+    const fieldErrors: Record<string, string> = {};
+    for (const issue of d.issues) fieldErrors[issue.path || "form"] ??= issue.message;
+    return { ok: false, message: d.message, fieldErrors, code: d.code };
   }
 }

@@ -1,7 +1,7 @@
 import { currentUser } from "@/lib/auth/session";
 import { can, type Capability } from "@/lib/auth/roles";
-import { DomainError, ForbiddenError, InputError, UnauthenticatedError } from "@/lib/errors";
-import { asOutage } from "./outage";
+import { ForbiddenError, UnauthenticatedError } from "@/lib/errors";
+import { errorResponse } from "./errors";
 import { assertContentType, assertSameOrigin } from "@/lib/http/origin";
 import { findLiveToken, touchTokenLater } from "@/lib/tokens/service";
 import { enforceRateLimit } from "./rate-limit";
@@ -41,28 +41,6 @@ export async function authenticate(req: Request, capability: Capability): Promis
     throw new ForbiddenError(`Your role (${caller.user.role}) may not use this endpoint.`);
   }
   return caller;
-}
-
-/**
- * Maps any error to a JSON response: domain errors keep their status and message, others become a logged 500.
- * @example catch (err) { return errorResponse(err); }
- */
-export function errorResponse(thrown: unknown): Response {
-  const err = asOutage(thrown);
-  if (err instanceof DomainError) {
-    const body: Record<string, unknown> = { error: err.code, message: err.message };
-    if (err instanceof InputError) body.issues = err.issues;
-    const headers: Record<string, string> = {};
-    const retryAfter = (err as { retryAfterSeconds?: number }).retryAfterSeconds;
-    if (retryAfter) headers["retry-after"] = String(retryAfter);
-    return Response.json(body, { status: err.status, headers });
-  }
-  const issues = (err as { issues?: unknown })?.issues;
-  if (err instanceof Error && err.name.endsWith("ValidationError") && Array.isArray(issues)) {
-    return Response.json({ error: "invalid_input", message: err.message, issues }, { status: 400 });
-  }
-  console.error("Unhandled API error", err);
-  return Response.json({ error: "internal", message: "Something went wrong on the server; it has been logged." }, { status: 500 });
 }
 
 /** Per-route options of apiRoute. */

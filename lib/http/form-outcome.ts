@@ -1,5 +1,4 @@
-import { asOutage } from "./outage";
-import { DomainError, ForbiddenError, NotFoundError, ServiceUnavailableError, UnauthenticatedError } from "@/lib/errors";
+import { describeError } from "./errors";
 
 /**
  * Plain `<form action>` server actions (no client state to return a result to) report a refusal by redirecting back
@@ -23,14 +22,16 @@ export type FormProblem = keyof typeof FORM_PROBLEMS;
  * @example formProblem(new NotFoundError("…")) // "not-found"
  */
 export function formProblem(thrown: unknown): FormProblem {
-  const err = asOutage(thrown);
-  if (err instanceof UnauthenticatedError) return "session";
-  if (err instanceof ForbiddenError) return "forbidden";
-  if (err instanceof NotFoundError) return "not-found";
-  if (err instanceof ServiceUnavailableError) return "unavailable";
-  if (err instanceof DomainError) return "invalid";
-  console.error("Unhandled form action error", err);
-  return "error";
+  const d = describeError(thrown);
+  if (!d.expected) {
+    console.error("Unhandled form action error", thrown);
+    return "error";
+  }
+  if (d.code === "unauthenticated") return "session";
+  if (d.code === "forbidden") return "forbidden";
+  if (d.code === "not_found") return "not-found";
+  if (d.code === "service_unavailable") return "unavailable";
+  return "invalid";
 }
 
 /**

@@ -1,6 +1,5 @@
-import { notFound } from "next/navigation";
 import { requirePageUser } from "@/lib/auth/session";
-import { NotFoundError } from "@/lib/errors";
+import { orPageError } from "@/lib/http/page-errors";
 import type { User } from "@/lib/users/repo";
 import type { WizardDraft } from "./mapper";
 import { completedSteps } from "../progress";
@@ -14,11 +13,6 @@ import type { StepSlug } from "../steps";
 export async function loadStep(params: Promise<{ draftId: string }>): Promise<{ user: User; draft: WizardDraft; done: StepSlug[] }> {
   const user = await requirePageUser("plan.run");
   const { draftId } = await params;
-  try {
-    const draft = await getOwnDraft(user, Number(draftId));
-    return { user, draft, done: completedSteps(draft.inputs) };
-  } catch (err) {
-    if (err instanceof NotFoundError) notFound();
-    throw err;
-  }
+  const draft = await orPageError(getOwnDraft(user, Number(draftId)));
+  return { user, draft, done: completedSteps(draft.inputs) };
 }

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { orPageError } from "@/lib/http/page-errors";
 import { PrintForm } from "@/components/bench/print-form";
 import { RunForm } from "@/components/bench/run-form";
 import { VersionRuns } from "@/components/runs/version-runs";
@@ -11,18 +12,12 @@ import { tidy } from "@/lib/units/number";
 import { formatUtcMinute } from "@/lib/format/time";
 import { loadSheetSourceById } from "@/lib/bench-sheet/source";
 import { isBenchReady, STATE_LABELS } from "@/lib/protocols/states";
-import { NotFoundError } from "@/lib/errors";
 import { maxUploadBytes } from "@/lib/runs/attachments";
 
 export const metadata: Metadata = { title: "Bench view" };
 
 async function load(user: Parameters<typeof loadSheetSourceById>[0], id: number) {
-  try {
-    return await loadSheetSourceById(user, id);
-  } catch (err) {
-    if (err instanceof NotFoundError) notFound();
-    throw err;
-  }
+  return orPageError(loadSheetSourceById(user, id));
 }
 
 export default async function BenchVersionPage({ params }: { params: Promise<{ versionId: string }> }) {

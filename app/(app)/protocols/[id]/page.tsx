@@ -4,7 +4,7 @@ import { NewVersionButton } from "@/components/protocols/new-version-button";
 import { VersionHistory } from "@/components/protocols/version-history";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTime } from "@/lib/format/time";
-import { orPageError, routeNumber } from "@/lib/protocols/page-errors";
+import { orPageError, routeNumber } from "@/lib/http/page-errors";
 import { getProtocolView } from "@/lib/protocols/queries";
 
 export const metadata: Metadata = { title: "Protocol" };

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { orPageError } from "@/lib/http/page-errors";
 import { DisplayTable } from "@/components/library/display-table";
 import { FitSummary } from "@/components/library/fit-summary";
 import { ItemActions } from "@/components/library/item-actions";
@@ -9,7 +10,6 @@ import { VersionDiff } from "@/components/library/version-diff";
 import { VersionHistory } from "@/components/library/version-history";
 import { can } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
-import { NotFoundError } from "@/lib/errors";
 import { formatDateTime } from "@/lib/format/time";
 import { diffVersions } from "@/lib/library/diff";
 import { isLibraryKind, kindInfo, type LibraryKind } from "@/lib/library/kinds";
@@ -22,12 +22,7 @@ export const metadata: Metadata = { title: "Library item" };
 type Search = Record<string, string | string[] | undefined>;
 
 async function load(kind: LibraryKind, id: number) {
-  try {
-    return await getItem(kind, id);
-  } catch (err) {
-    if (err instanceof NotFoundError) notFound();
-    throw err;
-  }
+  return orPageError(getItem(kind, id));
 }
 
 export default async function LibraryItemPage({ params, searchParams }: { params: Promise<{ kind: string; id: string }>; searchParams: Promise<Search> }) {

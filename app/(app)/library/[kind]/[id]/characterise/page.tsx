@@ -1,10 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { orPageError } from "@/lib/http/page-errors";
 import { CharacteriseWorkbench } from "@/components/characterisation/workbench";
 import { requirePageUser } from "@/lib/auth/session";
 import { characterisationPageData } from "@/lib/characterisation/page-data";
-import { NotFoundError } from "@/lib/errors";
 
 export const metadata: Metadata = { title: "Characterise from measurements" };
 
@@ -12,10 +12,7 @@ export default async function CharacterisePage({ params }: { params: Promise<{ k
   const { kind, id: idText } = await params;
   if (kind !== "populations" || !/^\d+$/.test(idText)) notFound();
   await requirePageUser("library.edit");
-  const data = await characterisationPageData(Number(idText)).catch((err) => {
-    if (err instanceof NotFoundError) notFound();
-    throw err;
-  });
+  const data = await orPageError(characterisationPageData(Number(idText)));
   return (
     <div className="space-y-5">
       <p className="text-sm"><Link href={`/library/populations/${data.id}`}>← {data.name}</Link></p>

@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { orPageError } from "@/lib/http/page-errors";
 import { ItemForm } from "@/components/library/item-form";
 import { requirePageUser } from "@/lib/auth/session";
-import { NotFoundError } from "@/lib/errors";
 import { formDefaults } from "@/lib/library/form-defaults";
 import { isLibraryKind, kindInfo, type LibraryKind } from "@/lib/library/kinds";
 import { getItem } from "@/lib/library/service";
@@ -12,12 +12,7 @@ import { isItemVersionInApprovedUse } from "@/lib/library/usage";
 export const metadata: Metadata = { title: "Edit library item" };
 
 async function load(kind: LibraryKind, id: number) {
-  try {
-    return await getItem(kind, id);
-  } catch (err) {
-    if (err instanceof NotFoundError) notFound();
-    throw err;
-  }
+  return orPageError(getItem(kind, id));
 }
 
 export default async function EditItemPage({ params }: { params: Promise<{ kind: string; id: string }> }) {

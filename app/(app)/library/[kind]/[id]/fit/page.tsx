@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { orPageError } from "@/lib/http/page-errors";
 import { FitWorkbench } from "@/components/library/fit-workbench";
 import { requirePageUser } from "@/lib/auth/session";
-import { NotFoundError } from "@/lib/errors";
 import { exampleCrossoverCsv } from "@/lib/fitting";
 import type { PopulationContent } from "@/lib/library/populations/content";
 import { shellSettingsOf } from "@/lib/library/fit-run";
@@ -14,12 +14,7 @@ import { tidy } from "@/lib/units/number";
 export const metadata: Metadata = { title: "Fit from crossovers" };
 
 async function load(id: number) {
-  try {
-    return await getItem("populations", id);
-  } catch (err) {
-    if (err instanceof NotFoundError) notFound();
-    throw err;
-  }
+  return orPageError(getItem("populations", id));
 }
 
 export default async function FitPage({ params }: { params: Promise<{ kind: string; id: string }> }) {

@@ -16,7 +16,7 @@ import { RetireForm } from "@/components/review/retire-form";
 import { ReturnForm } from "@/components/review/return-form";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTime } from "@/lib/format/time";
-import { orPageError, routeNumber } from "@/lib/protocols/page-errors";
+import { orPageError, routeNumber } from "@/lib/http/page-errors";
 import { getVersionView } from "@/lib/protocols/queries";
 
 export const metadata: Metadata = { title: "Protocol version" };

@@ -6,7 +6,7 @@ import { StatePill } from "@/components/protocols/state-pill";
 import { requirePageUser } from "@/lib/auth/session";
 import { diffContents } from "@/lib/protocols/diff";
 import { checkIntegrity } from "@/lib/protocols/integrity";
-import { orPageError, routeNumber } from "@/lib/protocols/page-errors";
+import { orPageError, routeNumber } from "@/lib/http/page-errors";
 import { getVersionView } from "@/lib/protocols/queries";
 
 export const metadata: Metadata = { title: "Compare versions" };
