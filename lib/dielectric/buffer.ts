@@ -14,6 +14,7 @@
  * - Osmolality: Σ φ·m over sugars and ions per kg of water; water mass from partial specific volumes of the sugars.
  */
 import { z } from "zod";
+import { BUFFER_FIELDS, MAX_ADDITIONS } from "@/lib/buffers/fields";
 import { EngineValidationError } from "./errors";
 import { brentRoot } from "./roots";
 import { conductivityAtTemperature, DEFAULT_CONDUCTIVITY_TEMPERATURE_COEFFICIENT, waterPermittivity, waterViscosity } from "./medium";
@@ -117,13 +118,15 @@ const additionSchema = z.union([
   }),
 ]);
 
-/** Schema of a buffer recipe (see `BufferRecipe`). */
+const { temperatureC: T, sucrosePercentWV: SUC, glucosePercentWV: GLU } = BUFFER_FIELDS;
+
+/** Schema of a buffer recipe (see `BufferRecipe`); temperature, sugar and addition limits come from the buffer field table. */
 export const bufferRecipeSchema = z.object({
   volumeL: quantity({ what: "base volume (L)", range: "greater than zero and at most 100 L", min: 0, max: 100, exclusiveMin: true }),
-  temperatureC: quantity({ what: "operating temperature (°C)", range: "between 0 and 60 °C", min: 0, max: 60 }),
-  sucrosePercentWV: quantity({ what: "sucrose (% w/v)", range: "between 0 and 30 % w/v (the viscosity fit's range)", min: 0, max: 30 }),
-  glucosePercentWV: quantity({ what: "glucose (% w/v)", range: "between 0 and 30 % w/v", min: 0, max: 30 }),
-  additions: z.array(additionSchema).max(20, { error: "at most 20 additions per recipe" }),
+  temperatureC: quantity({ what: "operating temperature (°C)", range: `between ${T.min} and ${T.max} °C`, min: T.min, max: T.max }),
+  sucrosePercentWV: quantity({ what: "sucrose (% w/v)", range: `between ${SUC.min} and ${SUC.max} % w/v (the viscosity fit's range)`, min: SUC.min, max: SUC.max }),
+  glucosePercentWV: quantity({ what: "glucose (% w/v)", range: `between ${GLU.min} and ${GLU.max} % w/v`, min: GLU.min, max: GLU.max }),
+  additions: z.array(additionSchema).max(MAX_ADDITIONS, { error: `at most ${MAX_ADDITIONS} additions per recipe` }),
   baseConductivity25: quantity({ what: "base conductivity at 25 °C (S/m)", range: "zero or positive, at most 1 S/m", min: 0, max: 1 }).optional(),
   temperatureCoefficient: quantity({ what: "conductivity temperature coefficient (1/K)", range: "between 0 and 0.05 per K", min: 0, max: 0.05 }).optional(),
 });
