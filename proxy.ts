@@ -11,9 +11,11 @@ const PUBLIC_PATH = /^\/(login|api|_next|favicon\.ico|fonts|robots\.txt)(\/|$)/;
 /**
  * Runs before every request: the sign-in gate for pages, then the security headers (CSP with a fresh nonce, no
  * framing, nosniff, referrer and permissions policies) on every page, API answer, download and redirect. The nonce
- * and the policy also go on the request, where Next reads them to put the nonce on its own inline scripts.
+ * and the policy also go on the request, where Next reads them to put the nonce on its own inline scripts. Its own
+ * time goes out as `server-timing: proxy;dur=…` (ms); pages log theirs (lib/http/page-timing.ts).
  */
 export default async function proxy(req: NextRequest, event: NextFetchEvent): Promise<Response> {
+  const started = performance.now();
   const path = req.nextUrl.pathname;
   const nonce = newNonce();
   const headers = securityHeaders({
@@ -31,6 +33,7 @@ export default async function proxy(req: NextRequest, event: NextFetchEvent): Pr
     res = NextResponse.next({ request: { headers: forwarded } });
   }
   for (const [name, value] of Object.entries(headers)) res.headers.set(name, value);
+  res.headers.append("server-timing", `proxy;dur=${(performance.now() - started).toFixed(1)}`);
   return res;
 }
 

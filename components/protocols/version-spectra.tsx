@@ -1,32 +1,34 @@
-import { SpectraChart, type SpectrumLine } from "@/components/charts/spectra-chart";
-import { evaluateSpectra, waterPermittivity } from "@/lib/dielectric";
-import { formatConductivity, formatFrequency } from "@/lib/units/format";
+import { formatConductivity, formatFrequency, formatTemperature } from "@/lib/units/format";
+import { SPECTRUM_GRID } from "@/lib/wizard/spectra-request";
 import type { ProtocolContent } from "@/lib/protocols/content";
-import { spectraBody, toSeries } from "@/lib/wizard/spectra-request";
+import { timedSync } from "@/lib/http/page-timing";
+import { versionSpectra } from "@/lib/protocols/version-spectra";
+import { VersionSpectraChart } from "./version-spectra-chart";
 
 /**
- * Re[K] spectra of both populations in the version's medium (recomputed from the frozen content with the fixed seed),
- * with the chosen frequency marked. Read-only; a model failure is shown in words, not as an empty chart.
+ * Re[K] spectra of both populations in the version's medium (recomputed from the frozen content with the fixed seed,
+ * once per content hash), with the chosen frequency marked. The crossovers are stated in words on the server; the
+ * chart itself is drawn in the browser. Read-only; a model failure is shown in words, not as an empty chart.
  */
-export function VersionSpectra({ content }: { content: ProtocolContent }) {
+export function VersionSpectra({ content, contentHash }: { content: ProtocolContent; contentHash: string }) {
   const s = content.selection;
-  const medium = { conductivity: s.conductivity, permittivity: waterPermittivity(s.temperatureC) };
-  let lines: SpectrumLine[];
-  try {
-    lines = (["target", "other"] as const).map((key, i) => {
-      const pop = content.populations[key];
-      return { key, label: pop.name, series: toSeries(evaluateSpectra(spectraBody(pop.spec, key, i, medium))) };
-    });
-  } catch (err) {
-    return <p className="notice">The spectra could not be drawn from this content: {(err as Error).message}</p>;
-  }
+  const spectra = timedSync("spectra", () => versionSpectra(content, contentHash));
+  if (!spectra.ok) return <p className="notice">The spectra could not be drawn from this content: {spectra.message}</p>;
+  const { lines } = spectra;
   return (
     <section className="card" data-testid="version-spectra">
       <h2 className="mb-1">Re[K] spectra at the chosen conductivity</h2>
       <p className="hint mb-3">
-        {formatConductivity(s.conductivity)}, {s.temperatureC} °C; the marker is the drive frequency {formatFrequency(s.frequency)}. Bands: about the middle 80 % of sampled cells.
+        {formatConductivity(s.conductivity)}, {formatTemperature(s.temperatureC)}; the marker is the drive frequency {formatFrequency(s.frequency)}. Bands: about the middle 80 % of sampled cells.
       </p>
-      <SpectraChart lines={lines} marker={s.frequency} title={`Re[K] of ${lines[0].label} and ${lines[1].label} against frequency`} />
+      <VersionSpectraChart lines={lines} marker={s.frequency} title={`Re[K] of ${lines[0].label} and ${lines[1].label} against frequency`} />
+      <ul className="mt-2 text-sm text-ink-soft" data-testid="version-crossovers">
+        {lines.map((l) => (
+          <li key={l.key}>
+            {l.label}: {l.series.crossovers.length === 0 ? `no crossover between ${formatFrequency(SPECTRUM_GRID.start)} and ${formatFrequency(SPECTRUM_GRID.stop)}` : `crossover${l.series.crossovers.length === 1 ? "" : "s"} at ${l.series.crossovers.map((x) => formatFrequency(x)).join(", ")}`}
+          </li>
+        ))}
+      </ul>
     </section>
   );
 }

@@ -1,18 +1,26 @@
 import { PrintForm } from "@/components/bench/print-form";
-import { versionBenchStatus } from "@/lib/protocols/queries";
+import { timed } from "@/lib/http/page-timing";
+import type { ProtocolContent } from "@/lib/protocols/content";
 import { listRunsForVersion } from "@/lib/runs/repo";
 import { ObservedChart } from "./observed-chart";
 import { RunsTable } from "./runs-table";
 
+/** What the runs section needs of the version its page has already read. */
+export interface VersionForRuns {
+  id: number;
+  protocolId: number;
+  number: number;
+  content: Pick<ProtocolContent, "selection">;
+}
+
 /**
  * The bench side of a protocol version: its bench-sheet download, the runs recorded against it, predicted against
  * observed recovery and purity, and out-of-range conductivity flags. A server component; the caller has already
- * checked that the viewer may see the version. `showPrint={false}` where the page has its own print form.
+ * read the version (and checked that the viewer may see it and whether it is bench-ready: approved, signed, hash
+ * intact), so only the runs are read here. `showPrint={false}` where the page has its own print form.
  */
-export async function VersionRuns({ versionId, showPrint = true }: { versionId: number; showPrint?: boolean }) {
-  const [status, runs] = await Promise.all([versionBenchStatus(versionId), listRunsForVersion(versionId)]);
-  if (!status) return null;
-  const { version, benchReady } = status;
+export async function VersionRuns({ version, benchReady, showPrint = true }: { version: VersionForRuns; benchReady: boolean; showPrint?: boolean }) {
+  const runs = await timed("runs", () => listRunsForVersion(version.id));
   const predicted = version.content.selection.predicted;
   const outOfRange = runs.filter((r) => !r.conductivityAccepted).length;
   const oldestFirst = [...runs].reverse();

@@ -1,5 +1,6 @@
 import { getToken } from "next-auth/jwt";
 import { cookies } from "next/headers";
+import { cache } from "react";
 import { forbidden, redirect } from "next/navigation";
 import { authOptions } from "./options";
 import { can, type Capability } from "./roles";
@@ -29,14 +30,16 @@ export async function currentSessionId(): Promise<string | null> {
 
 /**
  * The signed-in user of a live server-side session (lib/auth/sessions.ts), re-read with the session so sign-out,
- * time-outs, deactivation and role changes take effect at once; null if none.
+ * time-outs, deactivation and role changes take effect at once; null if none. Read once per page render (React's
+ * request cache): the layout and the page asking both get the same answer from one query. Outside a render (route
+ * handlers, server actions) every call reads afresh.
  * @example const user = await currentUser();
  */
-export async function currentUser(): Promise<User | null> {
+export const currentUser = cache(async (): Promise<User | null> => {
   const sid = await currentSessionId();
   if (!sid) return null;
   return (await resolveSession(sid)).user;
-}
+});
 
 /**
  * For pages: the signed-in user holding `capability`; otherwise redirects to sign-in or renders the 403 page.

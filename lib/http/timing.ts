@@ -1,8 +1,8 @@
 import { serverTimingDuration } from "@/lib/units/duration";
 
 /**
- * Server-Timing for route handlers: time named steps of one request and send them as the `server-timing` header
- * (browsers' developer tools and `npm run load` read it). Durations in milliseconds.
+ * Server-Timing: time named steps of one request. Route handlers send them as the `server-timing` header (browsers'
+ * developer tools and `npm run load` read it); pages log them (lib/http/page-timing.ts). Durations in milliseconds.
  */
 export class ServerTiming {
   private readonly start = performance.now();
@@ -16,6 +16,19 @@ export class ServerTiming {
     const t0 = performance.now();
     try {
       return await fn();
+    } finally {
+      this.steps.push([name, performance.now() - t0]);
+    }
+  }
+
+  /**
+   * Runs one synchronous step and records how long it took.
+   * @example const lines = timing.measure("spectra", () => versionSpectra(content, hash));
+   */
+  measure<T>(name: string, fn: () => T): T {
+    const t0 = performance.now();
+    try {
+      return fn();
     } finally {
       this.steps.push([name, performance.now() - t0]);
     }

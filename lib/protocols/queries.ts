@@ -40,18 +40,17 @@ function assertVisible(viewer: Viewer, state: VersionState): void {
  * @example const view = await getVersionView(user, 3, 2); if (!view.integrity.ok) showError(view.integrity.problems);
  */
 export async function getVersionView(viewer: Viewer, protocolId: number, number: number): Promise<VersionView> {
-  const protocol = await repo.findProtocol(db, protocolId);
-  const version = protocol ? await repo.findVersionByNumber(db, protocolId, number) : null;
+  const [protocol, version] = await Promise.all([repo.findProtocol(db, protocolId), repo.findVersionByNumber(db, protocolId, number)]);
   if (!protocol || !version) throw new NotFoundError(`No version ${number} of protocol ${protocolId}.`);
   assertVisible(viewer, version.state);
-  const [signatures, comments, editorIds, previousApproved, latest] = await Promise.all([
+  const [signatures, comments, editorIds, previousApproved, latest, who] = await Promise.all([
     repo.listSignatures(db, [version.id]),
     repo.listComments(db, version.id),
     repo.editorIds(db, version),
     repo.previousApproved(db, protocolId, number),
     repo.latestVersion(db, protocolId),
+    namesByIds([version.authorId, version.lastEditorId]),
   ]);
-  const who = await namesByIds([version.authorId, version.lastEditorId]);
   const policyVersion = { state: version.state, authorId: version.authorId, editorIds };
   const allowed = (action: "edit" | "submit" | "return" | "approve" | "retire", event: Parameters<typeof nextState>[1]) =>
     !denial(viewer, action, policyVersion) && (nextState(version.state, event) !== null || (event === "edit" && version.state === "returned"));
@@ -146,7 +145,23 @@ export async function listProtocols(viewer: Viewer, filter: ProtocolFilter = {})
   if (filter.state || filter.authorId || filter.population) q.whereExists(matching.select(db.raw("1")));
   const protocols = (await q.limit(500)).map(toProtocol);
   if (protocols.length === 0) return [];
-  const versions = (await db("protocol_versions").whereIn("protocol_id", protocols.map((p) => p.id)).orderBy("number", "desc")).map(toVersion);
+  // Only the columns the list shows: the population names come out of the content in SQL, so the list does not
+  // fetch and parse every version's full content (tens of kB each).
+  const versions = (
+    await db("protocol_versions")
+      .whereIn("protocol_id", protocols.map((p) => p.id))
+      .orderBy("number", "desc")
+      .select(
+        "protocol_id",
+        "number",
+        "state",
+        "author_id",
+        "updated_at",
+        "approved_at",
+        db.raw("JSON_UNQUOTE(JSON_EXTRACT(content_json, '$.populations.target.name')) AS target_name"),
+        db.raw("JSON_UNQUOTE(JSON_EXTRACT(content_json, '$.populations.other.name')) AS other_name"),
+      )
+  ).map(toListVersion);
   const who = await namesByIds(versions.map((v) => v.authorId));
   return protocols.map((protocol) => {
     const own = versions.filter((v) => v.protocolId === protocol.id);
@@ -157,9 +172,23 @@ export async function listProtocols(viewer: Viewer, filter: ProtocolFilter = {})
       protocol,
       latest: { number: latest.number, state: latest.state, authorName: who.get(latest.authorId) ?? "unknown", updatedAt: latest.updatedAt },
       current: current && { number: current.number, approvedAt: current.approvedAt },
-      populations: { target: shown.content?.populations?.target?.name ?? "—", other: shown.content?.populations?.other?.name ?? "—" },
+      populations: { target: shown.targetName ?? "—", other: shown.otherName ?? "—" },
     };
   });
+}
+
+function toListVersion(row: Record<string, unknown>) {
+  const text = (v: unknown) => (typeof v === "string" && v !== "" && v !== "null" ? v : null);
+  return {
+    protocolId: Number(row.protocol_id),
+    number: Number(row.number),
+    state: row.state as VersionState,
+    authorId: Number(row.author_id),
+    updatedAt: new Date(row.updated_at as string),
+    approvedAt: row.approved_at === null || row.approved_at === undefined ? null : new Date(row.approved_at as string),
+    targetName: text(row.target_name),
+    otherName: text(row.other_name),
+  };
 }
 
 /** Authors who have written at least one version (for the list filter). */

@@ -4,6 +4,7 @@ import { ProtocolFilters } from "@/components/protocols/protocol-filters";
 import { StatePill } from "@/components/protocols/state-pill";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTime } from "@/lib/format/time";
+import { logPageTiming, timed } from "@/lib/http/page-timing";
 import { listAuthors, listProtocols } from "@/lib/protocols/queries";
 import { VERSION_STATES, type VersionState } from "@/lib/protocols/states";
 
@@ -12,12 +13,13 @@ export const metadata: Metadata = { title: "Protocols" };
 type Search = { state?: string; population?: string; author?: string };
 
 export default async function ProtocolsPage({ searchParams }: { searchParams: Promise<Search> }) {
-  const user = await requirePageUser("protocol.read");
+  logPageTiming("/protocols");
+  const user = await timed("session", () => requirePageUser("protocol.read"));
   const sp = await searchParams;
   const state = (VERSION_STATES as readonly string[]).includes(sp.state ?? "") ? (sp.state as VersionState) : undefined;
   const authorId = Number(sp.author) > 0 ? Number(sp.author) : undefined;
   const population = sp.population?.trim() || undefined;
-  const [rows, authors] = await Promise.all([listProtocols(user, { state, authorId, population }), listAuthors()]);
+  const [rows, authors] = await timed("list", () => Promise.all([listProtocols(user, { state, authorId, population }), listAuthors()]));
   const filtered = Boolean(state || authorId || population);
   return (
     <div className="max-w-6xl space-y-5">

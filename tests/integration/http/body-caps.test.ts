@@ -1,4 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { POST as cellsFit } from "@/app/api/v1/fits/cells/route";
+import { POST as crossoverFit } from "@/app/api/v1/fits/crossovers/route";
 import { POST as fit } from "@/app/api/v1/library/[kind]/[id]/fit/route";
 import { POST as importLibrary } from "@/app/api/v1/library/[kind]/import/route";
 import { POST as postRun } from "@/app/api/v1/runs/route";
@@ -21,6 +23,8 @@ const routes: { name: string; handler: Handler; role: "developer" | "technician"
   { name: "sweeps", handler: sweeps as Handler, role: "developer", capMiB: 2, ctx: {}, type: "application/json" },
   { name: "windows", handler: windows as Handler, role: "developer", capMiB: 2, ctx: {}, type: "application/json" },
   { name: "windows/sensitivity", handler: sensitivity as Handler, role: "developer", capMiB: 2, ctx: {}, type: "application/json" },
+  { name: "fits/crossovers", handler: crossoverFit as Handler, role: "developer", capMiB: 2, ctx: {}, type: "application/json" },
+  { name: "fits/cells", handler: cellsFit as Handler, role: "developer", capMiB: 2, ctx: {}, type: "application/json" },
   { name: "library import", handler: importLibrary as Handler, role: "developer", capMiB: 40, ctx: { params: Promise.resolve({ kind: "populations" }) }, type: "application/json" },
   { name: "population fit", handler: fit as Handler, role: "developer", capMiB: 24, ctx: { params: Promise.resolve({ kind: "populations", id: "1" }) }, type: "application/json" },
   { name: "runs", handler: postRun as Handler, role: "technician", capMiB: 51, ctx: {}, type: "multipart/form-data; boundary=xyz" },

@@ -57,7 +57,7 @@ export default async function BenchVersionPage({ params }: { params: Promise<{ v
           />
         </section>
       )}
-      <VersionRuns versionId={version.id} showPrint={false} />
+      <VersionRuns version={{ id: version.id, protocolId: protocol.id, number: version.number, content }} benchReady={ready} showPrint={false} />
     </div>
   );
 }

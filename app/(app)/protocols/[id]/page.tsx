@@ -4,15 +4,17 @@ import { NewVersionButton } from "@/components/protocols/new-version-button";
 import { VersionHistory } from "@/components/protocols/version-history";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTime } from "@/lib/format/time";
+import { logPageTiming, timed } from "@/lib/http/page-timing";
 import { orPageError, routeNumber } from "@/lib/http/page-errors";
 import { getProtocolView } from "@/lib/protocols/queries";
 
 export const metadata: Metadata = { title: "Protocol" };
 
 export default async function ProtocolPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await requirePageUser("protocol.read");
+  logPageTiming("/protocols/[id]");
+  const user = await timed("session", () => requirePageUser("protocol.read"));
   const { id } = await params;
-  const { protocol, versions, canNewVersion } = await orPageError(getProtocolView(user, routeNumber(id)));
+  const { protocol, versions, canNewVersion } = await timed("view", () => orPageError(getProtocolView(user, routeNumber(id))));
   const current = versions.find((v) => v.version.state === "approved");
   const latest = versions[0];
   return (

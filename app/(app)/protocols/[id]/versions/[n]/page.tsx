@@ -16,15 +16,17 @@ import { RetireForm } from "@/components/review/retire-form";
 import { ReturnForm } from "@/components/review/return-form";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTime } from "@/lib/format/time";
+import { logPageTiming, timed } from "@/lib/http/page-timing";
 import { orPageError, routeNumber } from "@/lib/http/page-errors";
 import { getVersionView } from "@/lib/protocols/queries";
 
 export const metadata: Metadata = { title: "Protocol version" };
 
 export default async function VersionPage({ params }: { params: Promise<{ id: string; n: string }> }) {
-  const user = await requirePageUser("protocol.read");
+  logPageTiming("/protocols/[id]/versions/[n]");
+  const user = await timed("session", () => requirePageUser("protocol.read"));
   const { id, n } = await params;
-  const view = await orPageError(getVersionView(user, routeNumber(id), routeNumber(n)));
+  const view = await timed("view", () => orPageError(getVersionView(user, routeNumber(id), routeNumber(n))));
   const { protocol, version: v, integrity, can } = view;
   const c = v.content;
   const signed = view.signatures.length > 0;
@@ -56,9 +58,9 @@ export default async function VersionPage({ params }: { params: Promise<{ id: st
       <div className="grid items-start gap-5 lg:grid-cols-[1fr_22rem]">
         <div className="min-w-0 space-y-5">
           <ResultsView content={c} />
-          <VersionSpectra content={c} />
+          <VersionSpectra content={c} contentHash={integrity.computed} />
           <InputsView content={c} />
-          <VersionRuns versionId={v.id} />
+          <VersionRuns version={v} benchReady={v.state === "approved" && signed && integrity.ok} />
         </div>
         <aside className="space-y-5">
           {anyAction && (
