@@ -188,6 +188,9 @@ describe("protocol versions against MariaDB", () => {
     await createProtocol(lee, { title: "Lymphocyte filter check", purpose: "Filter test.", content: other });
     const byPop = await listProtocols(sam, { population: "LYMPHOCYTE" });
     expect(byPop.map((r) => r.protocol.title)).toEqual(["Lymphocyte filter check"]);
+    expect(byPop[0].populations).toEqual({ target: "Live lymphocyte-like cells", other: other.populations.other.name });
+    expect(byPop[0].latest).toMatchObject({ number: 1, state: "draft", authorName: lee.name });
+    expect(byPop[0].current).toBeNull();
     const byAuthor = await listProtocols(sam, { authorId: lee.id });
     expect(byAuthor.map((r) => r.protocol.title)).toEqual(["Lymphocyte filter check"]);
     const superseded = await listProtocols(sam, { state: "superseded" });
