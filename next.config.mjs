@@ -2,7 +2,9 @@
 const nextConfig = {
   serverExternalPackages: ["knex", "mysql2", "pdfkit", "bcryptjs", "nodemailer", "smtp-server", "piscina", "@aws-sdk/client-s3"],
   poweredByHeader: false,
-  experimental: { authInterrupts: true },
+  // Server-action bodies: 1 MiB, the same as MAX_ACTION_BODY_BYTES in lib/http/action-body.ts, which the proxy checks
+  // first so an oversized or malformed action body gets 413/400 rather than Next's 500.
+  experimental: { authInterrupts: true, serverActions: { bodySizeLimit: "1mb" } },
   // Only for local sandboxes while others' work is in progress; npm test always typechecks (tsc and build).
   // Static build files skip proxy.ts; they still must not be sniffed or framed.
   async headers() {

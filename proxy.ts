@@ -1,5 +1,6 @@
 import { NextResponse, type NextFetchEvent, type NextRequest } from "next/server";
 import { withAuth, type NextRequestWithAuth } from "next-auth/middleware";
+import { checkActionBody } from "@/lib/http/action-body";
 import { newNonce, securityHeaders, servedOverHttps } from "@/lib/http/security-headers";
 
 /** Signed-out visitors to any signed-in page are sent to /login (roles are checked again on the server). */
@@ -9,7 +10,8 @@ const authGate = withAuth({ pages: { signIn: "/login" } });
 const PUBLIC_PATH = /^\/(login|api|_next|favicon\.ico|fonts|robots\.txt)(\/|$)/;
 
 /**
- * Runs before every request: the sign-in gate for pages, then the security headers (CSP with a fresh nonce, no
+ * Runs before every request: the sign-in gate for pages, a size and shape check of server-action bodies (413/400
+ * instead of Next's 500, lib/http/action-body.ts), then the security headers (CSP with a fresh nonce, no
  * framing, nosniff, referrer and permissions policies) on every page, API answer, download and redirect. The nonce
  * and the policy also go on the request, where Next reads them to put the nonce on its own inline scripts. Its own
  * time goes out as `server-timing: proxy;dur=…` (ms); pages log theirs (lib/http/page-timing.ts).
@@ -25,7 +27,7 @@ export default async function proxy(req: NextRequest, event: NextFetchEvent): Pr
     kind: path.startsWith("/api/") ? "resource" : "document",
   });
   const gated = PUBLIC_PATH.test(path) ? null : await authGate(req as NextRequestWithAuth, event);
-  let res = gated instanceof Response ? gated : null;
+  let res = gated instanceof Response ? gated : await checkActionBody(req);
   if (!res) {
     const forwarded = new Headers(req.headers);
     forwarded.set("x-nonce", nonce);
