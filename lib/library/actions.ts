@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { requireActionUser } from "@/lib/auth/session";
+import { actionArgs, flag, recordId } from "@/lib/http/action-args";
 import { runAction, type ActionResult } from "@/lib/http/action-result";
 import { parseOrThrow } from "@/lib/http/zod-issues";
 import { FORMS } from "./forms";
@@ -36,7 +37,7 @@ export async function saveLibraryItemAction(kind: LibraryKind, target: { id: num
 export async function duplicateItemAction(kind: LibraryKind, id: number): Promise<ActionResult<{ id: number }>> {
   return runAction(async () => {
     const actor = await requireActionUser("library.edit");
-    const copy = await duplicateItem(actor, parseOrThrow(kindSchema, kind), id);
+    const copy = await duplicateItem(actor, parseOrThrow(kindSchema, kind), actionArgs({ id: recordId("item id") }, { id }).id);
     revalidatePath(`/library/${kind}`);
     return { ok: true, message: `Created "${copy.name}".`, data: { id: copy.id } };
   });
@@ -46,7 +47,8 @@ export async function duplicateItemAction(kind: LibraryKind, id: number): Promis
 export async function setArchivedAction(kind: LibraryKind, id: number, archived: boolean): Promise<ActionResult> {
   return runAction(async () => {
     const actor = await requireActionUser("library.edit");
-    const item = await setArchived(actor, parseOrThrow(kindSchema, kind), id, archived);
+    const args = actionArgs({ id: recordId("item id"), archived: flag("archived") }, { id, archived });
+    const item = await setArchived(actor, parseOrThrow(kindSchema, kind), args.id, args.archived);
     revalidatePath(`/library/${kind}`);
     return { ok: true, message: `${archived ? "Archived" : "Restored"} "${item.name}"${archived ? `; it no longer appears in the planner's ${kindInfo(kind).label.toLowerCase()}` : ""}.` };
   });

@@ -2,6 +2,7 @@
 
 import { revalidatePath } from "next/cache";
 import { requireActionUser } from "@/lib/auth/session";
+import { actionArgs, recordId } from "@/lib/http/action-args";
 import { runAction, type ActionResult } from "@/lib/http/action-result";
 import { approveVersion, retireVersion, returnVersion } from "./review";
 import { createProtocol, newVersion, submitVersion, updateDraftDetails } from "./service";
@@ -29,7 +30,7 @@ export async function createProtocolAction(input: unknown): Promise<ActionResult
 export async function newVersionAction(protocolId: number): Promise<ActionResult<{ number: number }>> {
   return runAction(async () => {
     const actor = await requireActionUser("protocol.author");
-    const v = await newVersion(actor, Number(protocolId));
+    const v = await newVersion(actor, actionArgs({ protocolId: recordId("protocol id") }, { protocolId }).protocolId);
     refresh(v.protocolId);
     return { ok: true, message: `Version ${v.number} started as a draft copy.`, data: { number: v.number } };
   });

@@ -3,6 +3,7 @@
 import { redirect } from "next/navigation";
 import { revalidatePath } from "next/cache";
 import { requireActionUser } from "@/lib/auth/session";
+import { actionArgs, recordId, shortText } from "@/lib/http/action-args";
 import { runAction, type ActionResult } from "@/lib/http/action-result";
 import { InputError } from "@/lib/errors";
 import { formProblem } from "@/lib/http/form-outcome";
@@ -29,9 +30,10 @@ export async function startDraftAction(): Promise<void> {
 export async function saveStepAction(draftId: number, step: string, values: unknown, resumeAt?: string, title?: string): Promise<ActionResult<{ lockVersion: number; updatedAt: string }>> {
   return runAction(async () => {
     const user = await requireActionUser("plan.run");
-    if (!isStepSlug(step)) throw new InputError([{ path: "step", message: `Unknown planner step "${step}".` }]);
+    const args = actionArgs({ draftId: recordId("draft id"), title: shortText("title", 1000).optional() }, { draftId, title });
+    if (!isStepSlug(step)) throw new InputError([{ path: "step", message: `Unknown planner step "${String(step)}".` }]);
     const resume = resumeAt && isStepSlug(resumeAt) ? resumeAt : step;
-    const draft = await saveStepInputs(user, draftId, step, values, resume, title);
+    const draft = await saveStepInputs(user, args.draftId, step, values, resume, args.title);
     return { ok: true, message: "Saved.", data: { lockVersion: draft.lockVersion, updatedAt: draft.updatedAt.toISOString() } };
   });
 }
@@ -54,7 +56,7 @@ export async function discardDraftAction(form: FormData): Promise<void> {
 export async function saveProtocolAction(draftId: number, values: unknown): Promise<ActionResult<{ protocolId: number; versionNumber: number; code: string }>> {
   return runAction(async () => {
     const user = await requireActionUser("protocol.author");
-    const saved = await saveAsProtocol(user, draftId, values);
+    const saved = await saveAsProtocol(user, actionArgs({ draftId: recordId("draft id") }, { draftId }).draftId, values);
     revalidatePath("/protocols");
     revalidatePath("/planner");
     return { ok: true, message: `Saved as ${saved.code ? `${saved.code} ` : ""}version ${saved.versionNumber} (draft).`, data: { protocolId: saved.protocolId, versionNumber: saved.versionNumber, code: saved.code } };
