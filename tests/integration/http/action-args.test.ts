@@ -13,7 +13,7 @@ vi.mock("next/cache", () => ({ revalidatePath: () => undefined, revalidateTag: (
 
 const { newVersionAction } = await import("@/lib/protocols/actions");
 const { duplicateItemAction, setArchivedAction } = await import("@/lib/library/actions");
-const { saveStepAction, saveProtocolAction } = await import("@/lib/planner-wizard/actions");
+const { saveStepAction, saveProtocolAction } = await import("@/lib/wizard/drafts/actions");
 
 beforeAll(async () => {
   await freshSchema();
