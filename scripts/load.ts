@@ -4,7 +4,8 @@
  * bench sheet, and a cheap request alone and while bench-sheet PDFs are being drawn. Prints p50/p95/p99 and errors,
  * and writes bench/load-results.md. Needs the app's database env (it makes a throwaway API token); start the app with
  * a high RATE_LIMIT_PER_MINUTE, or the per-token limiter answers 429 and those count as errors.
- * LOAD_SECONDS and LOAD_CONNECTIONS override the defaults; LOAD_ONLY=name,name picks scenarios.
+ * LOAD_SECONDS and LOAD_CONNECTIONS override the defaults; LOAD_ONLY=name,name picks scenarios; LOAD_SERVER describes the
+ * server in the results (default "`next start`, one process"; e.g. "scripts/serve.ts, APP_WORKERS=2").
  */
 import "./load-env";
 import { execSync } from "node:child_process";
@@ -28,6 +29,7 @@ const SECONDS = Number(process.env.LOAD_SECONDS ?? 30);
 const ONLY = (process.env.LOAD_ONLY ?? "").split(",").filter(Boolean);
 const USER = process.env.LOAD_USER_EMAIL ?? "dana.dev@example.test";
 const ARROW = "application/vnd.apache.arrow.stream";
+const SERVER = process.env.LOAD_SERVER ?? "`next start`, one process";
 
 /** One scenario's figures: latencies at the client in ms, responses per second, and errors (incl. non-2xx/304). */
 interface Figures {
@@ -153,7 +155,7 @@ async function main(): Promise<void> {
     "# Load test (`npm run load`)",
     "",
     `Written by scripts/load.ts on ${new Date().toISOString().slice(0, 16).replace("T", " ")} UTC, commit ${commit()}, against ${BASE}`,
-    `(\`next start\`, one process), autocannon on loopback, ${CONNECTIONS} connections for ${SECONDS} s per scenario unless noted.`,
+    `(${SERVER}), autocannon on loopback, ${CONNECTIONS} connections for ${SECONDS} s per scenario unless noted.`,
     `Machine: ${machine}. Load generator and server share it. 1-minute load average ${loadBefore.toFixed(1)} at the start and`,
     `${loadAfter.toFixed(1)} at the end: **the machine was shared with other work during this run, so every figure is`,
     "inflated by CPU contention and is an upper bound for a quiet machine.** Latency is at the client, queueing included.",
