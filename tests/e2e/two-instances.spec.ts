@@ -124,7 +124,7 @@ test(`the API rate limit (${RATE_LIMIT} a minute per token) counts requests to b
     const overB = await call(B);
     expect([overA.status, overB.status]).toEqual([429, 429]);
     expect(overB.headers.get("retry-after")).toMatch(/^\d+$/);
-    expect(((await overB.json()) as { message: string }).message).toContain(`at most ${RATE_LIMIT} requests per minute per token`);
+    expect(((await overB.json()) as { message: string }).message).toContain(`at most ${RATE_LIMIT} API requests per minute`);
   } finally {
     await revokeToken(user, token.id);
   }
