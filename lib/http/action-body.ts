@@ -1,4 +1,4 @@
-import { describeBytes } from "./body";
+import { formatFileSize as describeBytes } from "@/lib/units/size";
 
 /**
  * Server-action requests checked before Next.js decodes them. Next answers 500 to a fetch action whose body is over
