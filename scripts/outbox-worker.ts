@@ -1,9 +1,10 @@
 import { db } from "../db/knex";
+import { readEnv } from "../lib/env";
 import { deliverDueMail } from "../lib/mail/sender";
 import { smtpTransport } from "../lib/mail/transport";
 
 /** The outbox sender: its own process, polling mail_outbox every OUTBOX_POLL_MS and delivering over SMTP. */
-const pollMs = Number(process.env.OUTBOX_POLL_MS ?? 2000);
+const pollMs = readEnv().OUTBOX_POLL_MS;
 const transport = smtpTransport();
 let stopping = false;
 

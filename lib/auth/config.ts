@@ -7,7 +7,7 @@ import { z } from "zod";
 const count = (fallback: number, max: number) => z.coerce.number().int().min(0).max(max).default(fallback);
 const atLeastOne = (fallback: number, max: number) => z.coerce.number().int().min(1).max(max).default(fallback);
 
-const SCHEMA = z.object({
+export const AUTH_SETTINGS = z.object({
   AUTH_ACCOUNT_DELAY_AFTER: atLeastOne(5, 1000),
   AUTH_ACCOUNT_LOCK_AFTER: atLeastOne(10, 1000),
   AUTH_ADDRESS_DELAY_AFTER: atLeastOne(20, 100_000),
@@ -22,9 +22,9 @@ const SCHEMA = z.object({
 });
 
 /** The checked settings. */
-export type AuthConfig = z.output<typeof SCHEMA>;
+export type AuthConfig = z.output<typeof AUTH_SETTINGS>;
 
-const NAMES = Object.keys(SCHEMA.shape) as (keyof AuthConfig)[];
+const NAMES = Object.keys(AUTH_SETTINGS.shape) as (keyof AuthConfig)[];
 let cache: { key: string; config: AuthConfig } | null = null;
 
 /**
@@ -35,7 +35,7 @@ export function authConfig(source: Record<string, string | undefined> = process.
   const key = NAMES.map((n) => source[n] ?? "").join("\u0000");
   if (cache?.key === key) return cache.config;
   const raw = Object.fromEntries(NAMES.map((n) => [n, source[n] === "" ? undefined : source[n]]));
-  const parsed = SCHEMA.safeParse(raw);
+  const parsed = AUTH_SETTINGS.safeParse(raw);
   if (!parsed.success) {
     const problems = parsed.error.issues.map((i) => `${String(i.path[0])}: ${i.message} (value ${JSON.stringify(raw[String(i.path[0])])})`);
     throw new Error(`Configuration error: ${problems.join("; ")}`);

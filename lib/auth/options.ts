@@ -1,3 +1,4 @@
+import { readEnv } from "@/lib/env";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { isRole } from "./roles";
@@ -21,7 +22,7 @@ export const authOptions: NextAuthOptions = {
   pages: { signIn: "/login" },
   // Session and CSRF cookies get `Secure` (and the __Secure-/__Host- names) whenever the base URL is https.
   useSecureCookies: servedOverHttps(),
-  secret: process.env.NEXTAUTH_SECRET,
+  secret: readEnv().NEXTAUTH_SECRET,
   providers: [
     CredentialsProvider({
       name: "Email and password",

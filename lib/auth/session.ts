@@ -1,3 +1,4 @@
+import { readEnv } from "@/lib/env";
 import { getToken } from "next-auth/jwt";
 import { cookies } from "next/headers";
 import { cache } from "react";
@@ -10,7 +11,7 @@ import { ForbiddenError, UnauthenticatedError } from "@/lib/errors";
 
 /** Whether next-auth names its cookies with the `__Secure-` prefix (https base URL). */
 function secureCookies(): boolean {
-  return authOptions.useSecureCookies ?? (process.env.NEXTAUTH_URL ?? "").startsWith("https://");
+  return authOptions.useSecureCookies ?? readEnv().NEXTAUTH_URL.startsWith("https://");
 }
 
 /**

@@ -1,3 +1,4 @@
+import { readEnv } from "@/lib/env";
 import Piscina from "piscina";
 import { DomainError } from "@/lib/errors";
 import { workerBundleUrl } from "@/lib/worker-bundles";
@@ -23,8 +24,7 @@ const holder = globalThis as unknown as { sievewrightSheetPool?: Piscina };
  * @example pdfWorkerCount() // 1
  */
 export function pdfWorkerCount(): number {
-  const n = Number(process.env.PDF_WORKERS ?? 1);
-  return Number.isInteger(n) && n >= 1 && n <= 16 ? n : 1;
+  return readEnv().PDF_WORKERS;
 }
 
 function pool(): Piscina {

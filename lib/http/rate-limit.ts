@@ -1,3 +1,4 @@
+import { readEnv } from "@/lib/env";
 import { RateLimitedError } from "@/lib/errors";
 import { countHit, pruneWindowsBefore } from "./rate-windows-repo";
 
@@ -7,17 +8,9 @@ import { countHit, pruneWindowsBefore } from "./rate-windows-repo";
  */
 
 const WINDOW_MS = 60_000;
-const DEFAULT_PER_MINUTE = 120;
 
 /** Whose budget a request spends: one API token, or one user calling with the session cookie. */
 export type RateSubject = { kind: "token"; tokenId: number } | { kind: "user"; userId: number };
-
-function positiveInt(name: string, raw: string | undefined, fallback: number): number {
-  if (raw === undefined || raw.trim() === "") return fallback;
-  const n = Number(raw);
-  if (!Number.isInteger(n) || n < 1) throw new Error(`${name} must be a whole number of requests per minute ≥ 1; it is "${raw}".`);
-  return n;
-}
 
 /**
  * The requests per minute a subject may make: RATE_LIMIT_PER_MINUTE per token (default 120) and
@@ -26,9 +19,9 @@ function positiveInt(name: string, raw: string | undefined, fallback: number): n
  * @example rateLimitFor({ kind: "user", userId: 5 }) // 120
  */
 export function rateLimitFor(subject: RateSubject): number {
-  const perToken = positiveInt("RATE_LIMIT_PER_MINUTE", process.env.RATE_LIMIT_PER_MINUTE, DEFAULT_PER_MINUTE);
-  if (subject.kind === "token") return perToken;
-  return positiveInt("RATE_LIMIT_SESSION_PER_MINUTE", process.env.RATE_LIMIT_SESSION_PER_MINUTE, perToken);
+  const env = readEnv();
+  if (subject.kind === "token") return env.RATE_LIMIT_PER_MINUTE;
+  return env.RATE_LIMIT_SESSION_PER_MINUTE ?? env.RATE_LIMIT_PER_MINUTE;
 }
 
 function subjectKey(subject: RateSubject): string {

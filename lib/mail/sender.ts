@@ -1,3 +1,4 @@
+import { readEnv } from "@/lib/env";
 import { randomUUID } from "node:crypto";
 import type { Transporter } from "nodemailer";
 import { db } from "@/db/knex";
@@ -38,13 +39,13 @@ export interface SenderOptions {
 }
 
 /** Attempts after which a message is given up (status "failed", kept with its last error). */
-export const MAX_ATTEMPTS = Number(process.env.OUTBOX_MAX_ATTEMPTS ?? 12);
+export const MAX_ATTEMPTS = readEnv().OUTBOX_MAX_ATTEMPTS;
 
-const DEFAULT_LEASE_MS = Number(process.env.OUTBOX_LEASE_MS ?? 120_000);
-const DEFAULT_SEND_DEADLINE_MS = Number(process.env.OUTBOX_SEND_DEADLINE_MS ?? 60_000);
+const DEFAULT_LEASE_MS = readEnv().OUTBOX_LEASE_MS;
+const DEFAULT_SEND_DEADLINE_MS = readEnv().OUTBOX_SEND_DEADLINE_MS;
 
 /** Delay before the next attempt after `attempts` failures: 2^(n-1) × base, capped at 10 minutes. @example backoffMs(3, 5000) // 20000 */
-export function backoffMs(attempts: number, baseMs = Number(process.env.OUTBOX_BACKOFF_BASE_MS ?? 5_000)): number {
+export function backoffMs(attempts: number, baseMs = readEnv().OUTBOX_BACKOFF_BASE_MS): number {
   return Math.min(baseMs * 2 ** Math.max(0, attempts - 1), 10 * 60_000);
 }
 

@@ -1,4 +1,5 @@
 import nodemailer, { type Transporter } from "nodemailer";
+import { readEnv } from "@/lib/env";
 
 /**
  * An SMTP transport from SMTP_HOST / SMTP_PORT / SMTP_USER / SMTP_PASSWORD / SMTP_SECURE.
@@ -7,21 +8,22 @@ import nodemailer, { type Transporter } from "nodemailer";
  * @example await smtpTransport().sendMail({ from, to, subject, text });
  */
 export function smtpTransport(): Transporter {
-  const host = process.env.SMTP_HOST ?? "127.0.0.1";
+  const env = readEnv();
+  const host = env.SMTP_HOST;
   const loopback = host === "127.0.0.1" || host === "localhost";
   return nodemailer.createTransport({
     host,
-    port: Number(process.env.SMTP_PORT ?? 2525),
-    secure: process.env.SMTP_SECURE === "true",
+    port: env.SMTP_PORT,
+    secure: env.SMTP_SECURE,
     ignoreTLS: loopback,
-    auth: process.env.SMTP_USER ? { user: process.env.SMTP_USER, pass: process.env.SMTP_PASSWORD ?? "" } : undefined,
-    connectionTimeout: Number(process.env.SMTP_CONNECT_TIMEOUT_MS ?? 5_000),
-    greetingTimeout: Number(process.env.SMTP_GREETING_TIMEOUT_MS ?? 5_000),
-    socketTimeout: Number(process.env.SMTP_SOCKET_TIMEOUT_MS ?? 10_000),
+    auth: env.SMTP_USER ? { user: env.SMTP_USER, pass: env.SMTP_PASSWORD ?? "" } : undefined,
+    connectionTimeout: env.SMTP_CONNECT_TIMEOUT_MS,
+    greetingTimeout: env.SMTP_GREETING_TIMEOUT_MS,
+    socketTimeout: env.SMTP_SOCKET_TIMEOUT_MS,
   });
 }
 
 /** The From header for outgoing mail. */
 export function mailFrom(): string {
-  return process.env.SMTP_FROM ?? "Sievewright <no-reply@sievewright.test>";
+  return readEnv().SMTP_FROM;
 }

@@ -1,3 +1,4 @@
+import { readEnv } from "@/lib/env";
 import type { Knex } from "knex";
 import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
 import { formatDateTime } from "@/lib/format/time";
@@ -19,7 +20,7 @@ type Trx = Knex.Transaction;
  * @example versionLink(3, 2) // "http://127.0.0.1:3000/protocols/3/versions/2"
  */
 export function versionLink(protocolId: number, number: number): string {
-  const base = (process.env.APP_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/+$/, "");
+  const base = readEnv().APP_BASE_URL;
   return `${base}/protocols/${protocolId}/versions/${number}`;
 }
 

@@ -1,3 +1,4 @@
+import { readEnv } from "@/lib/env";
 import { createHash } from "node:crypto";
 import Papa from "papaparse";
 import { InputError, type FieldIssue } from "@/lib/errors";
@@ -25,8 +26,7 @@ export const MAX_ATTACHMENTS = 5;
  * @example maxUploadBytes() // 10485760 with the default
  */
 export function maxUploadBytes(): number {
-  const mb = Number(process.env.UPLOAD_MAX_MB ?? 10);
-  return Math.round((Number.isFinite(mb) && mb > 0 ? mb : 10) * 1024 * 1024);
+  return Math.round(readEnv().UPLOAD_MAX_MB * 1024 * 1024);
 }
 
 const startsWith = (b: Uint8Array, sig: number[]) => sig.every((v, i) => b[i] === v);

@@ -1,3 +1,4 @@
+import { readEnv } from "@/lib/env";
 import { createHash, randomBytes } from "node:crypto";
 import type { Knex } from "knex";
 import { db } from "@/db/knex";
@@ -37,7 +38,7 @@ function hashToken(token: string): string {
 }
 
 function baseUrl(): string {
-  return (process.env.APP_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/+$/, "");
+  return readEnv().APP_BASE_URL;
 }
 
 function lifetimeSeconds(purpose: links.LinkPurpose): number {

@@ -1,3 +1,4 @@
+import { readEnv } from "@/lib/env";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { AuthSection, ErrorsSection, RateLimitSection } from "@/components/api-docs/reference-sections";
@@ -13,7 +14,7 @@ export const metadata: Metadata = { title: "API" };
 
 export default async function ApiDocsPage() {
   const user = await requirePageUser("api.compute");
-  const baseUrl = (process.env.APP_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");
+  const baseUrl = readEnv().APP_BASE_URL;
   return (
     <div className="max-w-4xl space-y-6">
       <header className="space-y-2">

@@ -1,3 +1,4 @@
+import { readEnv } from "@/lib/env";
 import type { Metadata } from "next";
 import { CapturedList } from "@/components/mail/captured-list";
 import { OutboxTable } from "@/components/mail/outbox-table";
@@ -10,8 +11,7 @@ export const dynamic = "force-dynamic";
 
 /** Whether mail goes to the local sink (loopback SMTP with a capture folder) rather than a real relay. */
 function sinkDir(): string | null {
-  const host = process.env.SMTP_HOST ?? "127.0.0.1";
-  const dir = process.env.MAIL_SINK_DIR;
+  const { SMTP_HOST: host, MAIL_SINK_DIR: dir } = readEnv();
   return dir && (host === "127.0.0.1" || host === "localhost") ? dir : null;
 }
 

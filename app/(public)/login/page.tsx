@@ -1,3 +1,4 @@
+import { readEnv } from "@/lib/env";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { redirect } from "next/navigation";
@@ -11,7 +12,7 @@ export const metadata: Metadata = { title: "Sign in" };
 export default async function LoginPage({ searchParams }: { searchParams: Promise<{ callbackUrl?: string | string[] }> }) {
   if (await currentUser()) redirect("/home");
   const { callbackUrl } = await searchParams;
-  const safeCallback = safeRedirectPath(callbackUrl, process.env.APP_BASE_URL ?? process.env.NEXTAUTH_URL ?? "http://127.0.0.1:3000");
+  const safeCallback = safeRedirectPath(callbackUrl, readEnv().APP_BASE_URL);
   return (
     <main className="mx-auto flex min-h-screen max-w-4xl flex-col items-center justify-center gap-10 px-6 md:flex-row md:items-center">
       <section className="flex max-w-sm flex-col justify-center gap-4">

@@ -1,0 +1,47 @@
+import { describe, expect, it } from "vitest";
+import { readEnv } from "@/lib/env";
+
+describe("readEnv — every variable parsed once with its rule", () => {
+  it("gives the documented defaults when nothing is set", () => {
+    const env = readEnv({});
+    expect(env).toMatchObject({
+      APP_BASE_URL: "http://127.0.0.1:3000",
+      SMTP_PORT: 2525,
+      SMTP_SECURE: false,
+      PDF_WORKERS: 1,
+      UPLOAD_MAX_MB: 10,
+      RATE_LIMIT_PER_MINUTE: 120,
+      OUTBOX_MAX_ATTEMPTS: 12,
+      S3_FORCE_PATH_STYLE: true,
+      SESSION_IDLE_MINUTES: 30,
+    });
+    expect(env.RATE_LIMIT_SESSION_PER_MINUTE).toBeUndefined();
+  });
+
+  it("converts and trims values; an empty value counts as unset; a trailing slash leaves the base URL", () => {
+    const env = readEnv({ SMTP_PORT: " 2626 ", SMTP_SECURE: "yes", APP_BASE_URL: "https://sort.lab.example/", PDF_WORKERS: "" });
+    expect(env.SMTP_PORT).toBe(2626);
+    expect(env.SMTP_SECURE).toBe(true);
+    expect(env.APP_BASE_URL).toBe("https://sort.lab.example");
+    expect(env.PDF_WORKERS).toBe(1);
+  });
+
+  it.each([
+    ["SMTP_PORT", "70000"],
+    ["PDF_WORKERS", "0"],
+    ["UPLOAD_MAX_MB", "-1"],
+    ["APP_BASE_URL", "ftp://files.example"],
+    ["APP_WORKERS", "many"],
+    ["SMTP_SECURE", "perhaps"],
+    ["RATE_LIMIT_SESSION_PER_MINUTE", "2.5"],
+    ["S3_BUCKET", "Bad_Bucket"],
+    ["SESSION_IDLE_MINUTES", "0"],
+    ["DB_NAME", "drop table;"],
+  ])("refuses %s=%s with a message naming the variable and the value", (name, value) => {
+    expect(() => readEnv({ [name]: value })).toThrow(new RegExp(`^Configuration error: .*${name}: .*\\(value ${JSON.stringify(value).replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}\\)`));
+  });
+
+  it("names every bad variable at once", () => {
+    expect(() => readEnv({ SMTP_PORT: "x", OUTBOX_MAX_ATTEMPTS: "0" })).toThrow(/SMTP_PORT: .*; OUTBOX_MAX_ATTEMPTS: /);
+  });
+});
