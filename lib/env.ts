@@ -45,7 +45,7 @@ export const ENV_SCHEMA = z.object({
   OUTBOX_MAX_ATTEMPTS: whole(12, 1, 1_000),
   OUTBOX_BACKOFF_BASE_MS: whole(5_000, 1, 3_600_000),
   PDF_WORKERS: whole(1, 1, 16),
-  UPLOAD_MAX_MB: z.coerce.number().gt(0).max(1_024).default(10),
+  UPLOAD_MAX_MB: z.coerce.number().gt(0).max(12, "must be at most 12: five attachments plus the form must fit the 64 MiB proxy body limit (next.config.mjs)").default(10),
   RATE_LIMIT_PER_MINUTE: whole(120, 1, 10_000_000),
   RATE_LIMIT_SESSION_PER_MINUTE: z.coerce.number().int().min(1).max(10_000_000).optional(),
   S3_ENDPOINT: z.string().url().optional(),

@@ -30,6 +30,7 @@ describe("readEnv — every variable parsed once with its rule", () => {
     ["SMTP_PORT", "70000"],
     ["PDF_WORKERS", "0"],
     ["UPLOAD_MAX_MB", "-1"],
+    ["UPLOAD_MAX_MB", "20"],
     ["APP_BASE_URL", "ftp://files.example"],
     ["APP_WORKERS", "many"],
     ["SMTP_SECURE", "perhaps"],
