@@ -58,8 +58,9 @@ export async function checkActionBody(req: Request, maxBytes = MAX_ACTION_BODY_B
   if (declared > maxBytes) return refusal(413, `The form data is ${describeBytes(declared)}; ${limit}. Nothing was saved.`);
   const bytes = req.body ? await readUpTo(req.body, maxBytes) : new Uint8Array(new ArrayBuffer(0));
   if (!bytes) return refusal(413, `The form data is larger than ${describeBytes(maxBytes)}; ${limit}. Nothing was saved.`);
-  const type = (req.headers.get("content-type") ?? "").toLowerCase();
-  if (type.startsWith("multipart/form-data")) {
+  // The multipart boundary is case-sensitive: only the media type is compared without case.
+  const type = req.headers.get("content-type") ?? "";
+  if (type.toLowerCase().startsWith("multipart/form-data")) {
     let root: FormDataEntryValue | null = null;
     try {
       root = (await new Response(bytes, { headers: { "content-type": type } }).formData()).get("0");
