@@ -1,3 +1,4 @@
+import { tidy } from "@/lib/units/number";
 import { evaluateSpectra, waterPermittivity } from "@/lib/dielectric";
 import { spectraBody, toSeries, type SpectrumSeries } from "@/lib/wizard/spectra-request";
 import type { ProtocolContent } from "./content";
@@ -20,7 +21,7 @@ const CACHE_SIZE = 128;
 const cache = new Map<string, VersionSpectra>();
 
 function round(values: number[], digits: number): number[] {
-  return values.map((v) => Number(v.toPrecision(digits)));
+  return values.map((v) => tidy(v, digits));
 }
 
 function compute(content: ProtocolContent): VersionSpectra {
