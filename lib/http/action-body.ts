@@ -1,4 +1,6 @@
+import { TooLargeError } from "@/lib/errors";
 import { formatFileSize as describeBytes } from "@/lib/units/size";
+import { readCappedBytes } from "./body";
 
 /**
  * Server-action requests checked before Next.js decodes them. Next answers 500 to a fetch action whose body is over
@@ -12,29 +14,6 @@ export const MAX_ACTION_BODY_BYTES = 1024 * 1024;
 
 function refusal(status: 400 | 413, message: string): Response {
   return Response.json({ error: status === 413 ? "too_large" : "bad_request", message }, { status });
-}
-
-async function readUpTo(body: ReadableStream<Uint8Array>, maxBytes: number): Promise<Uint8Array<ArrayBuffer> | null> {
-  const reader = body.getReader();
-  const parts: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > maxBytes) {
-      await reader.cancel().catch(() => undefined);
-      return null;
-    }
-    parts.push(value);
-  }
-  const out = new Uint8Array(new ArrayBuffer(total));
-  let at = 0;
-  for (const p of parts) {
-    out.set(p, at);
-    at += p.byteLength;
-  }
-  return out;
 }
 
 function isArgumentList(json: string): boolean {
@@ -56,8 +35,13 @@ export async function checkActionBody(req: Request, maxBytes = MAX_ACTION_BODY_B
   const limit = `the limit for a form submission is ${describeBytes(maxBytes)}`;
   const declared = Number(req.headers.get("content-length") ?? NaN);
   if (declared > maxBytes) return refusal(413, `The form data is ${describeBytes(declared)}; ${limit}. Nothing was saved.`);
-  const bytes = req.body ? await readUpTo(req.body, maxBytes) : new Uint8Array(new ArrayBuffer(0));
-  if (!bytes) return refusal(413, `The form data is larger than ${describeBytes(maxBytes)}; ${limit}. Nothing was saved.`);
+  let bytes: Uint8Array<ArrayBuffer>;
+  try {
+    bytes = await readCappedBytes(req, maxBytes, "form data");
+  } catch (error) {
+    if (error instanceof TooLargeError) return refusal(413, `The form data is larger than ${describeBytes(maxBytes)}; ${limit}. Nothing was saved.`);
+    throw error;
+  }
   // The multipart boundary is case-sensitive: only the media type is compared without case.
   const type = req.headers.get("content-type") ?? "";
   if (type.toLowerCase().startsWith("multipart/form-data")) {
