@@ -1,12 +1,8 @@
 import type { Knex } from "knex";
 import { versionsReferring, type ItemReference } from "@/lib/protocols/repo";
+import { isLocking } from "@/lib/protocols/states";
 import { kindInfo, type LibraryKind } from "./kinds";
 
-/**
- * Protocol version states in which a referenced item version must stay as it is: submitted for review, signed, or
- * signed and since replaced or retired. A draft or returned version may still change its references.
- */
-export const LOCKING_STATES = ["in_review", "approved", "superseded", "retired"] as const;
 
 /** A protocol version that refers to an item version. */
 export type ProtocolUse = ItemReference;
@@ -24,11 +20,11 @@ export async function listProtocolUses(kind: LibraryKind, id: number, version?: 
 
 /**
  * Whether item version `version` of item `id` is referenced by a protocol version that is in review, approved,
- * superseded or retired (LOCKING_STATES). Such an item version cannot be corrected in place: an edit must become a
+ * superseded or retired (LOCKING_STATES, lib/protocols/states.ts). Such an item version cannot be corrected in place: an edit must become a
  * new item version. False when the protocol tables do not exist yet.
  * @example if (await isItemVersionInApprovedUse("populations", 4, 2)) throw new ConflictError("…");
  */
 export async function isItemVersionInApprovedUse(kind: LibraryKind, id: number, version: number, conn?: Knex): Promise<boolean> {
   const uses = await listProtocolUses(kind, id, version, conn);
-  return uses.some((u) => (LOCKING_STATES as readonly string[]).includes(u.state));
+  return uses.some((u) => isLocking(u.state));
 }

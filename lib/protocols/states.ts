@@ -67,6 +67,21 @@ export const OPEN_STATES: readonly VersionState[] = ["draft", "in_review", "retu
 export const SIGNED_STATES: readonly VersionState[] = ["approved", "superseded", "retired"];
 
 /**
+ * States in which a version's content, and so every library item version it refers to, is frozen: the version can
+ * neither be edited nor reopened as a draft (in review, approved, superseded, retired). Derived from the transitions.
+ * @example LOCKING_STATES // ["in_review", "approved", "superseded", "retired"]
+ */
+export const LOCKING_STATES: readonly VersionState[] = VERSION_STATES.filter((s) => !nextState(s, "edit") && !nextState(s, "reopen"));
+
+/**
+ * Whether a version in this state freezes what it refers to (see LOCKING_STATES).
+ * @example isLocking("returned") // false
+ */
+export function isLocking(state: string): boolean {
+  return (LOCKING_STATES as readonly string[]).includes(state);
+}
+
+/**
  * The "ready for the bench" rule: the version is approved, signed, every signature covers the version's content hash,
  * and re-hashing the stored content found no problem (`integrityProblems` from checkIntegrity, empty when intact).
  * @example isBenchReady({ state: "approved", contentHash: h }, [{ contentHash: h }], []) // true

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { VERSION_EVENTS, VERSION_STATES, isBenchReady, isOpen, nextState, refusal, type VersionEvent, type VersionState } from "@/lib/protocols/states";
+import { LOCKING_STATES, VERSION_EVENTS, isLocking, VERSION_STATES, isBenchReady, isOpen, nextState, refusal, type VersionEvent, type VersionState } from "@/lib/protocols/states";
 
 /** The lifecycle from DESIGN.md: every allowed step, and every other (state, event) pair refused. */
 const ALLOWED: [VersionState, VersionEvent, VersionState][] = [
@@ -46,6 +46,13 @@ describe("version state machine", () => {
 
   it("knows which states are open", () => {
     expect(VERSION_STATES.filter(isOpen)).toEqual(["draft", "in_review", "returned"]);
+  });
+
+  it("freezes referenced library items once a version is submitted, and never again unfreezes them", () => {
+    expect(LOCKING_STATES).toEqual(["in_review", "approved", "superseded", "retired"]);
+    expect(isLocking("returned")).toBe(false);
+    expect(isLocking("draft")).toBe(false);
+    expect(isLocking("superseded")).toBe(true);
   });
 });
 

@@ -15,7 +15,7 @@ import { diffVersions } from "@/lib/library/diff";
 import { isLibraryKind, kindInfo, type LibraryKind } from "@/lib/library/kinds";
 import { PROVENANCE_LABELS } from "@/lib/library/schemas";
 import { getItem, listHistory, listItemUses } from "@/lib/library/service";
-import { LOCKING_STATES } from "@/lib/library/usage";
+import { isLocking } from "@/lib/protocols/states";
 
 export const metadata: Metadata = { title: "Library item" };
 
@@ -33,7 +33,7 @@ export default async function LibraryItemPage({ params, searchParams }: { params
   const item = await load(kind, id);
   const info = kindInfo(kind);
   const [history, uses] = await Promise.all([listHistory(kind, id), listItemUses(kind, id)]);
-  const locked = new Set(uses.filter((u) => (LOCKING_STATES as readonly string[]).includes(u.state)).map((u) => u.itemVersion));
+  const locked = new Set(uses.filter((u) => isLocking(u.state)).map((u) => u.itemVersion));
   const sp = await searchParams;
   const pick = (v: string | string[] | undefined, d: number) => {
     const n = Number(Array.isArray(v) ? v[0] : v);
