@@ -6,11 +6,11 @@ import {
   electrolyteConductivity,
   evaluateBuffer,
   jouleTemperatureRise,
-  MICROSIEMENS_PER_CENTIMETRE,
   waterPermittivity,
   waterThermalConductivity,
   waterViscosity,
 } from "@/lib/dielectric";
+import { toSI } from "@/lib/units/lab";
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 
@@ -51,7 +51,7 @@ describe("conductivity", () => {
     { molar: 0.1, microSiemensPerCm: 12880 },
   ];
   it.each(standards)("KCl $molar mol/L → $microSiemensPerCm µS/cm at 25 °C within 3 % (ASTM D1125 / OIML R 56, values from memory)", ({ molar, microSiemensPerCm }) => {
-    const expected = microSiemensPerCm * MICROSIEMENS_PER_CENTIMETRE;
+    const expected = toSI("uS_cm", microSiemensPerCm);
     expect(rel(electrolyteConductivity({ "K+": molar, "Cl-": molar }), expected)).toBeLessThan(0.03);
     // Through the recipe calculator: KCl weighed into 1 L of water (molar mass 74.551 g/mol).
     const recipe = evaluateBuffer({ volumeL: 1, temperatureC: 25, sucrosePercentWV: 0, glucosePercentWV: 0, additions: [{ kind: "KCl", grams: molar * 74.551 }] });
