@@ -6,7 +6,7 @@ const globalForDb = globalThis as unknown as { sievewrightDb?: Knex };
 
 /**
  * The one Knex handle of the process (kept on globalThis so dev hot reload does not open new pools).
- * @example const row = await db("users").where({ id: 1 }).first();
+ * @example const row = await db("protocols").where({ id: 1 }).first();
  */
 export const db: Knex = globalForDb.sievewrightDb ?? knexFactory(dbConfig());
 markOutageErrors(db);

@@ -14,7 +14,7 @@ import { tableFromIPC } from "apache-arrow";
 import { db } from "../db/knex";
 import { buildParticle, PARTICLE_PRESETS } from "../lib/dielectric";
 import { createToken, revokeToken } from "../lib/tokens/service";
-import { findUserById } from "../lib/users/repo";
+import { findActiveUserByEmail, findUserById } from "../lib/users/repo";
 
 /** The part of autocannon's API used here (the package ships no type declarations). */
 interface AutocannonRun extends PromiseLike<{ errors: number; timeouts: number }> {
@@ -50,9 +50,8 @@ function percentile(sorted: number[], p: number): number {
 }
 
 async function makeToken(): Promise<{ id: number; secret: string; userId: number }> {
-  const row = await db("users").where({ email: DEVELOPER, active: true }).first("id");
-  if (!row) throw new Error(`No active user ${DEVELOPER} in database ${process.env.DB_NAME}; seed it or set BENCH_USER_EMAIL.`);
-  const user = (await findUserById(Number(row.id)))!;
+  const user = await findActiveUserByEmail(DEVELOPER);
+  if (!user) throw new Error(`No active user ${DEVELOPER} in database ${process.env.DB_NAME}; seed it or set BENCH_USER_EMAIL.`);
   const { id, secret } = await createToken(user, { label: `bench-api ${new Date().toISOString()}` });
   return { id, secret, userId: user.id };
 }

@@ -11,7 +11,7 @@ import http from "node:http";
 import { execSync } from "node:child_process";
 import { db } from "../db/knex";
 import { createToken, revokeToken } from "../lib/tokens/service";
-import { findUserById } from "../lib/users/repo";
+import { findActiveUserByEmail } from "../lib/users/repo";
 
 const BASE = new URL(process.env.APP_BASE_URL ?? "http://127.0.0.1:3000");
 const PIDS = (process.env.BENCH_PIDS ?? "").split(",").map(Number).filter((n) => n > 0);
@@ -60,9 +60,8 @@ function sendChunked(token: string, mb: number): Promise<{ status: number | stri
 
 async function main(): Promise<void> {
   if (PIDS.length === 0) throw new Error("Set BENCH_PIDS to the app server's PID(s), e.g. BENCH_PIDS=$(pgrep -d, -f next-server)");
-  const row = await db("users").where({ email: process.env.BENCH_USER_EMAIL ?? "dana.dev@example.test", active: true }).first("id");
-  if (!row) throw new Error("No demo developer in the database; seed it or set BENCH_USER_EMAIL.");
-  const user = (await findUserById(Number(row.id)))!;
+  const user = await findActiveUserByEmail(process.env.BENCH_USER_EMAIL ?? "dana.dev@example.test");
+  if (!user) throw new Error("No demo developer in the database; seed it or set BENCH_USER_EMAIL.");
   const token = await createToken(user, { label: `bench-bodies ${new Date().toISOString()}` });
   try {
     const before = rssMiB();

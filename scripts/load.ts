@@ -16,7 +16,7 @@ import { db } from "../db/knex";
 import { DEMO_PASSWORD } from "../db/seeds/01_users";
 import { buildParticle, PARTICLE_PRESETS } from "../lib/dielectric";
 import { createToken, revokeToken } from "../lib/tokens/service";
-import { findUserById } from "../lib/users/repo";
+import { findActiveUserByEmail } from "../lib/users/repo";
 
 interface AutocannonRun extends PromiseLike<{ errors: number; timeouts: number }> {
   on(event: "response", listener: (client: unknown, status: number, bytes: number, ms: number) => void): void;
@@ -97,9 +97,8 @@ function commit(): string {
 async function main(): Promise<void> {
   const want = (n: string) => ONLY.length === 0 || ONLY.includes(n);
   const loadBefore = os.loadavg()[0];
-  const row = await db("users").where({ email: USER, active: true }).first("id");
-  if (!row) throw new Error(`No active user ${USER} in database ${process.env.DB_NAME}; seed it or set LOAD_USER_EMAIL.`);
-  const user = (await findUserById(Number(row.id)))!;
+  const user = await findActiveUserByEmail(USER);
+  if (!user) throw new Error(`No active user ${USER} in database ${process.env.DB_NAME}; seed it or set LOAD_USER_EMAIL.`);
   const token = await createToken(user, { label: `load ${new Date().toISOString()}` });
   const approved = await db("protocol_versions as v").join("protocols as p", "p.id", "v.protocol_id").where("v.state", "approved").orderBy("v.id").first("p.id as pid", "v.number as n");
   const other = await db("protocol_versions as v").join("protocols as p", "p.id", "v.protocol_id").whereNot("v.state", "approved").orderBy("v.id").first("p.id as pid", "v.number as n");

@@ -1,10 +1,10 @@
 import { db } from "../db/knex";
+import { countUsers } from "../lib/users/repo";
 
 /** Seeds the demo scenario. With --if-empty it does nothing when users already exist. */
 async function main() {
   if (process.argv.includes("--if-empty")) {
-    const row = await db("users").count<{ n: number }[]>({ n: "*" }).first();
-    if (Number(row?.n ?? 0) > 0) {
+    if ((await countUsers()) > 0) {
       console.log("Demo data already present; keeping the existing database");
       await db.destroy();
       return;

@@ -17,5 +17,7 @@ export const DEMO_USERS = [
 
 export async function seed(knex: Knex): Promise<void> {
   const hash = await bcrypt.hash(DEMO_PASSWORD, 10);
-  await knex("users").insert(DEMO_USERS.map((u) => ({ ...u, password_hash: hash, active: true })));
+  // Imported here, not at the top: the e2e helpers import DEMO_PASSWORD from this file without a database.
+  const { insertUsers } = await import("../../lib/users/repo");
+  await insertUsers(knex, DEMO_USERS, hash);
 }

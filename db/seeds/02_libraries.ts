@@ -4,6 +4,7 @@ import type { BufferContent } from "../../lib/library/buffers/content";
 import type { DeviceContent } from "../../lib/library/devices/content";
 import type { PopulationContent } from "../../lib/library/populations/content";
 import { insertNewItem, type Actor } from "../../lib/library/service";
+import { findActiveUserByEmail } from "../../lib/users/repo";
 
 /**
  * Demo libraries for the invented scenario of DESIGN.md: Larkspur Fermentation QC (viable vs heat-killed brewing
@@ -110,7 +111,7 @@ export const DEMO_DEVICES: DeviceContent[] = [
 const STARTING_VALUES = "Starting values set by the assay developer from experience with similar cells; refine by fitting measured crossovers.";
 
 export async function seed(knex: Knex): Promise<void> {
-  const dana = await knex("users").where({ email: "dana.dev@example.test" }).first("id", "email");
+  const dana = await findActiveUserByEmail("dana.dev@example.test", knex);
   if (!dana) throw new Error("02_libraries needs the demo user dana.dev@example.test (01_users)");
   const actor: Actor = { id: Number(dana.id), email: dana.email };
   await knex.transaction(async (trx) => {

@@ -11,6 +11,7 @@ import { saveStepInputs, startDraft } from "../../lib/wizard/drafts/service";
 import { approveVersion } from "../../lib/protocols/review";
 import { newVersion, submitVersion } from "../../lib/protocols/service";
 import { recordRun } from "../../lib/runs/service";
+import { findActiveUserByEmail } from "../../lib/users/repo";
 import { DEMO_PASSWORD } from "./01_users";
 
 /**
@@ -22,9 +23,9 @@ import { DEMO_PASSWORD } from "./01_users";
 type Person = { id: number; email: string; name: string; role: "developer" | "reviewer" | "technician" };
 
 async function person(knex: Knex, email: string): Promise<Person> {
-  const row = await knex("users").where({ email }).first("id", "email", "name", "role");
-  if (!row) throw new Error(`Seed 03 needs the demo user ${email} (seed 01)`);
-  return { id: Number(row.id), email: row.email, name: row.name, role: row.role };
+  const user = await findActiveUserByEmail(email, knex);
+  if (!user) throw new Error(`Seed 03 needs the demo user ${email} (seed 01)`);
+  return { id: user.id, email: user.email, name: user.name, role: user.role as Person["role"] };
 }
 
 async function planAndSave(dev: Person, names: { target: string; other: string; buffer: string; device: string }, save: { title: string; purpose: string; notes: string }) {

@@ -2,6 +2,7 @@ import type { Knex } from "knex";
 import { db } from "@/db/knex";
 import type { Role } from "./roles";
 import type { User } from "@/lib/users/repo";
+import { joinUser } from "@/lib/users/repo";
 
 /** A stored session as the app sees it. */
 export interface SessionRecord {
@@ -43,12 +44,10 @@ export async function insertSession(
  * @example const found = await findSessionWithUser(hash);
  */
 export async function findSessionWithUser(idHash: string): Promise<SessionWithUser | null> {
-  const row = await db("user_sessions as s")
-    .join("users as u", "u.id", "s.user_id")
+  const row = await joinUser(db("user_sessions as s"), "s.user_id", "u", { email: "email", name: "name", role: "role", active: "active", created_at: "u_created_at" })
     .where("s.id_hash", idHash)
     .first(
       "s.id_hash", "s.user_id", "s.created_at as s_created_at", "s.last_seen_at", "s.expires_at", "s.revoked_at", "s.revoke_reason",
-      "u.email", "u.name", "u.role", "u.active", "u.created_at as u_created_at",
       db.raw("NOW(3) AS db_now"),
     );
   if (!row) return null;

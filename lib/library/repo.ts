@@ -3,6 +3,7 @@ import { db } from "@/db/knex";
 import { toItemHead, toItemVersion, type ItemRow, type ItemVersion, type LibraryItemHead, type VersionRow } from "./mapper";
 import type { DataFileRef } from "./data-files";
 import type { ProvenanceKind } from "./schemas";
+import { joinUser } from "@/lib/users/repo";
 
 /** List filters: text search over name and organisation, category, archived state, sort and page. */
 export interface ItemFilter {
@@ -52,20 +53,17 @@ const SORTS = { name: "i.name", updated: "i.updated_at", created: "i.created_at"
  * @example const repo = versionedRepo("buffers", "buffer_versions"); await repo.findItem(db, 3);
  */
 export function versionedRepo(itemsTable: string, versionsTable: string) {
-  const items = (conn: Knex) =>
-    conn(`${itemsTable} as i`)
-      .join("users as cu", "cu.id", "i.created_by")
-      .join("users as eu", "eu.id", "i.updated_by")
-      .select("i.*", "cu.name as creator_name", "cu.email as creator_email", "eu.name as editor_name", "eu.email as editor_email");
-  const versions = (conn: Knex) =>
-    conn(`${versionsTable} as v`)
-      .join("users as au", "au.id", "v.created_by")
-      .leftJoin("users as ru", "ru.id", "v.revised_by")
-      .select(
-        "v.id", "v.item_id", "v.version", "v.content_json", "v.provenance", "v.provenance_source", "v.fit_json", "v.data_file_name",
-        "v.change_note", "v.created_by", "v.created_at", "v.revised_by", "v.revised_at",
-        "au.name as author_name", "au.email as author_email", "ru.name as reviser_name", "ru.email as reviser_email",
-      );
+  const items = (conn: Knex) => {
+    const q = conn(`${itemsTable} as i`).select("i.*");
+    return joinUser(joinUser(q, "i.created_by", "cu", { name: "creator_name", email: "creator_email" }), "i.updated_by", "eu", { name: "editor_name", email: "editor_email" });
+  };
+  const versions = (conn: Knex) => {
+    const q = conn(`${versionsTable} as v`).select(
+      "v.id", "v.item_id", "v.version", "v.content_json", "v.provenance", "v.provenance_source", "v.fit_json", "v.data_file_name",
+      "v.change_note", "v.created_by", "v.created_at", "v.revised_by", "v.revised_at",
+    );
+    return joinUser(joinUser(q, "v.created_by", "au", { name: "author_name", email: "author_email" }), "v.revised_by", "ru", { name: "reviser_name", email: "reviser_email" }, { optional: true });
+  };
 
   return {
     itemsTable,

@@ -3,6 +3,7 @@ import { db } from "@/db/knex";
 import { actorIdsOf } from "@/lib/audit/repo";
 import type { VersionState } from "./states";
 import { toComment, toProtocol, toSignature, toVersion, type Protocol, type ProtocolVersion, type ReviewComment, type Signature } from "./mapper";
+import { joinUser } from "@/lib/users/repo";
 
 /** Database access for protocols (no rules here: the service decides, this reads and writes rows). */
 
@@ -170,11 +171,9 @@ export async function insertSignature(
 /** Signatures of the given versions, oldest first, with the signer's name. */
 export async function listSignatures(conn: Conn, versionIds: number[]): Promise<Signature[]> {
   if (versionIds.length === 0) return [];
-  const rows = await conn("signatures as s")
-    .join("users as u", "u.id", "s.signer_id")
+  const rows = await joinUser(conn("signatures as s").select("s.*"), "s.signer_id", "u", { name: "signer_name", email: "signer_email" })
     .whereIn("s.version_id", versionIds)
-    .orderBy("s.id")
-    .select("s.*", "u.name as signer_name", "u.email as signer_email");
+    .orderBy("s.id");
   return rows.map(toSignature);
 }
 
@@ -186,11 +185,9 @@ export async function insertComment(trx: Conn, c: { versionId: number; authorId:
 
 /** Comments on a version, oldest first, with the author's name. */
 export async function listComments(conn: Conn, versionId: number): Promise<ReviewComment[]> {
-  const rows = await conn("review_comments as c")
-    .join("users as u", "u.id", "c.author_id")
+  const rows = await joinUser(conn("review_comments as c").select("c.*"), "c.author_id", "u", { name: "author_name" })
     .where("c.version_id", versionId)
-    .orderBy("c.id")
-    .select("c.*", "u.name as author_name");
+    .orderBy("c.id");
   return rows.map(toComment);
 }
 

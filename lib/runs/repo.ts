@@ -1,5 +1,6 @@
 import type { Knex } from "knex";
 import { db } from "@/db/knex";
+import { joinUser } from "@/lib/users/repo";
 
 /** Database access for bench runs and their attachments (rows in, domain objects out; rules live in service.ts). */
 
@@ -130,16 +131,17 @@ export async function insertAttachment(trx: Conn, a: Omit<Attachment, "id" | "cr
   return Number(id);
 }
 
+/** bench_runs rows with the technician's name. */
+const withTechnician = (conn: Conn) => joinUser(conn("bench_runs as r").select("r.*"), "r.technician_id", "u", { name: "technician_name" });
+
 /**
  * Runs of a version, newest first, each with its attachments.
  * @example const runs = await listRunsForVersion(12);
  */
 export async function listRunsForVersion(versionId: number, conn: Conn = db): Promise<BenchRun[]> {
-  const rows: Row[] = await conn("bench_runs as r")
-    .join("users as u", "u.id", "r.technician_id")
+  const rows: Row[] = await withTechnician(conn)
     .where("r.version_id", versionId)
-    .orderBy("r.id", "desc")
-    .select("r.*", "u.name as technician_name");
+    .orderBy("r.id", "desc");
   const ids = rows.map((r) => num(r.id));
   const files = ids.length ? (await conn("attachments").whereIn("run_id", ids).orderBy("id")).map(toAttachment) : [];
   return rows.map((r) => toRun(r, files.filter((f) => f.runId === num(r.id))));
@@ -214,10 +216,8 @@ export async function runStatsByVersion(versionIds: number[], conn: Conn = db): 
  * @example const runs = await listRecentRuns(10); runs[0].technicianName
  */
 export async function listRecentRuns(limit: number, conn: Conn = db): Promise<BenchRun[]> {
-  const rows: Row[] = await conn("bench_runs as r")
-    .join("users as u", "u.id", "r.technician_id")
+  const rows: Row[] = await withTechnician(conn)
     .orderBy("r.created_at", "desc")
-    .limit(limit)
-    .select("r.*", "u.name as technician_name");
+    .limit(limit);
   return rows.map((r) => toRun(r));
 }
