@@ -5,29 +5,33 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, type FieldPath } from "react-hook-form";
 import type { z } from "zod";
-import { RUN_LIMITS, recordRunSchema } from "@/lib/runs/schemas";
+import { FREQUENCY_RANGE_TEXT, RUN_LIMITS, runFormSchema, toRunRecord } from "@/lib/runs/schemas";
+import type { FrequencyUnit } from "@/lib/units/format";
 import { formatMeterConductivity } from "@/lib/units/format";
 import { useHydrated } from "@/components/forms/use-hydrated";
 
-type In = z.input<typeof recordRunSchema>;
-type Out = z.output<typeof recordRunSchema>;
-type NumberField = keyof typeof RUN_LIMITS;
+type In = z.input<typeof runFormSchema>;
+type Out = z.output<typeof runFormSchema>;
+type NumberField = Exclude<keyof typeof RUN_LIMITS, "frequencyHz" | "frequencyKHz">;
 
 /** Planned settings used to prefill the form (lab units); the technician changes what differed. */
 export interface RunDefaults {
   operatingTemperatureC: number;
-  frequencyKHz: number;
+  /** The planned frequency in the unit the bench sheet prints it in (see `frequencyEntry`). */
+  frequency: { unit: FrequencyUnit; value: number };
   voltageVpp: number;
   flowRateUlPerMin: number | null;
+  /** The sheet's limit on minutes in the low-conductivity buffer, shown as a hint. */
+  maxMinutesInBuffer: number;
 }
 
-function NumberInput({ name, register, error, optional }: { name: NumberField; register: ReturnType<typeof useForm<In, unknown, Out>>["register"]; error?: string; optional?: boolean }) {
+function NumberInput({ name, register, error, optional, hint }: { name: NumberField; register: ReturnType<typeof useForm<In, unknown, Out>>["register"]; error?: string; optional?: boolean; hint?: string }) {
   const l = RUN_LIMITS[name];
   return (
     <label className="field">
       <span>{l.label} ({l.unit}){optional ? ", optional" : ""}</span>
       <input className="input" inputMode="decimal" aria-invalid={Boolean(error)} {...register(name)} />
-      <p className="hint">{l.min} to {l.max} {l.unit}</p>
+      <p className="hint">{l.min} to {l.max} {l.unit}{hint ? `; ${hint}` : ""}</p>
       {error && <p className="field-error">{error}</p>}
     </label>
   );
@@ -46,10 +50,13 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
     bufferLot: "",
     conductivityUsPerCm: "",
     measuredAtC: "",
+    osmolalityMOsmPerKg: "",
     operatingTemperatureC: String(defaults.operatingTemperatureC),
-    frequencyKHz: String(defaults.frequencyKHz),
+    frequency: String(defaults.frequency.value),
+    frequencyUnit: defaults.frequency.unit,
     voltageVpp: String(defaults.voltageVpp),
     flowRateUlPerMin: defaults.flowRateUlPerMin === null ? "" : String(defaults.flowRateUlPerMin),
+    minutesInBuffer: "",
     recoveryPercent: "",
     purityPercent: "",
     countingMethod: "",
@@ -57,7 +64,7 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
     notes: "",
   };
   const { register, handleSubmit, setError, reset, formState: { errors, isSubmitting } } = useForm<In, unknown, Out>({
-    resolver: zodResolver(recordRunSchema),
+    resolver: zodResolver(runFormSchema),
     defaultValues: initial,
   });
   const msg = (k: keyof In) => errors[k]?.message as string | undefined;
@@ -66,7 +73,7 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
     setStatus(null);
     setFileError(null);
     const body = new FormData();
-    body.set("run", JSON.stringify(values));
+    body.set("run", JSON.stringify(toRunRecord(values)));
     for (const f of files) body.append("attachments", f);
     const res = await fetch("/api/v1/runs", { method: "POST", body });
     const json = await res.json().catch(() => ({}));
@@ -74,7 +81,10 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
       const issues: { path: string; message: string }[] = json.issues ?? [];
       const fileIssues = issues.filter((i) => i.path === "attachments").map((i) => i.message);
       if (fileIssues.length) setFileError(fileIssues.join(" "));
-      for (const i of issues) if (i.path in initial) setError(i.path as FieldPath<In>, { message: i.message });
+      for (const i of issues) {
+        const field = i.path === "frequencyHz" ? "frequency" : i.path;
+        if (field in initial) setError(field as FieldPath<In>, { message: i.message });
+      }
       setStatus({ ok: false, text: `${json.message ?? `The server refused the run (${res.status}).`} Nothing was saved.` });
       return;
     }
@@ -92,7 +102,8 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
   return (
     <form onSubmit={handleSubmit(onSubmit)} className="space-y-5" noValidate data-testid="run-form">
       <input type="hidden" {...register("versionId")} />
-      <fieldset className="grid gap-4 sm:grid-cols-3">
+      <input type="hidden" {...register("frequencyUnit")} />
+      <fieldset className="grid gap-4 sm:grid-cols-4">
         <legend className="mb-2 font-medium">Buffer</legend>
         <label className="field">
           <span>Buffer lot</span>
@@ -101,13 +112,20 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
         </label>
         <NumberInput name="conductivityUsPerCm" register={register} error={msg("conductivityUsPerCm")} />
         <NumberInput name="measuredAtC" register={register} error={msg("measuredAtC")} />
+        <NumberInput name="osmolalityMOsmPerKg" register={register} error={msg("osmolalityMOsmPerKg")} optional />
       </fieldset>
-      <fieldset className="grid gap-4 sm:grid-cols-4">
+      <fieldset className="grid gap-4 sm:grid-cols-5">
         <legend className="mb-2 font-medium">Settings used</legend>
         <NumberInput name="operatingTemperatureC" register={register} error={msg("operatingTemperatureC")} />
-        <NumberInput name="frequencyKHz" register={register} error={msg("frequencyKHz")} />
+        <label className="field">
+          <span>Frequency ({defaults.frequency.unit})</span>
+          <input className="input" inputMode="decimal" aria-invalid={Boolean(errors.frequency)} data-testid="run-frequency" {...register("frequency")} />
+          <p className="hint">{FREQUENCY_RANGE_TEXT}; in {defaults.frequency.unit} as on the bench sheet</p>
+          {errors.frequency && <p className="field-error">{errors.frequency.message}</p>}
+        </label>
         <NumberInput name="voltageVpp" register={register} error={msg("voltageVpp")} />
         <NumberInput name="flowRateUlPerMin" register={register} error={msg("flowRateUlPerMin")} optional />
+        <NumberInput name="minutesInBuffer" register={register} error={msg("minutesInBuffer")} optional hint={`the sheet allows ${defaults.maxMinutesInBuffer} min`} />
       </fieldset>
       <fieldset className="grid gap-4 sm:grid-cols-3">
         <legend className="mb-2 font-medium">Observed</legend>

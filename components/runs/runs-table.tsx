@@ -1,10 +1,13 @@
-import { formatFlow, formatFrequency, formatMeterConductivity, formatPercentFixed, formatTemperature, formatVpp } from "@/lib/units/format";
+import { formatFlow, formatFrequency, formatMeterConductivity, formatMinutes, formatOsmolality, formatPercentFixed, formatTemperature, formatVpp } from "@/lib/units/format";
 import { formatUtcMinute } from "@/lib/format/time";
 import { formatFileSize } from "@/lib/units/size";
 import type { BenchRun } from "@/lib/runs/repo";
 
-/** The runs of one version, newest first, with the conductivity flag in words (not colour alone) and attachments. */
-export function RunsTable({ runs }: { runs: BenchRun[] }) {
+/**
+ * The runs of one version, newest first, with the conductivity flag in words (not colour alone), the measured
+ * osmolality and minutes in the low-conductivity buffer (flagged past the sheet's `maxMinutesInBuffer`), and attachments.
+ */
+export function RunsTable({ runs, maxMinutesInBuffer }: { runs: BenchRun[]; maxMinutesInBuffer?: number }) {
   if (runs.length === 0) return <p className="text-sm text-ink-muted">No runs recorded against this version yet.</p>;
   return (
     <table data-testid="runs-table">
@@ -15,7 +18,16 @@ export function RunsTable({ runs }: { runs: BenchRun[] }) {
         {runs.map((r) => (
           <tr key={r.id} data-testid={`run-${r.id}`}>
             <td>{formatUtcMinute(r.createdAt)}<span className="block text-xs text-ink-muted">{r.technicianName}</span></td>
-            <td>{r.bufferLot}</td>
+            <td>
+              {r.bufferLot}
+              <span className="block text-xs text-ink-muted" data-testid="run-osmolality">{r.measuredOsmolality === null ? "osmolality not measured" : formatOsmolality(r.measuredOsmolality)}</span>
+              {r.minutesInBuffer !== null && (
+                <span className="block text-xs" data-testid="run-minutes">
+                  {formatMinutes(r.minutesInBuffer)} in buffer
+                  {maxMinutesInBuffer !== undefined && r.minutesInBuffer > maxMinutesInBuffer && <span className="pill border-danger/40 bg-danger-light text-danger">over the {formatMinutes(maxMinutesInBuffer)} limit</span>}
+                </span>
+              )}
+            </td>
             <td>
               {formatMeterConductivity(r.measuredConductivity)} at {formatTemperature(r.measuredAtC)}
               <span className="block text-xs text-ink-muted">= {formatMeterConductivity(r.conductivity25)} at 25 °C</span>

@@ -10,7 +10,7 @@ export interface VersionForRuns {
   id: number;
   protocolId: number;
   number: number;
-  content: Pick<ProtocolContent, "selection">;
+  content: Pick<ProtocolContent, "selection" | "buffer">;
 }
 
 /**
@@ -37,7 +37,7 @@ export async function VersionRuns({ version, benchReady, showPrint = true }: { v
       </header>
       {showPrint && <PrintForm protocolId={version.protocolId} number={version.number} benchReady={benchReady} />}
       {points.some((p) => p.recovery !== null || p.purity !== null) && <ObservedChart points={points} predicted={predicted} />}
-      <RunsTable runs={runs} />
+      <RunsTable runs={runs} maxMinutesInBuffer={version.content.buffer.maxMinutesInBuffer} />
     </section>
   );
 }

@@ -14,6 +14,7 @@ import * as m400 from "./20261203_400_rate_windows";
 import * as m700 from "./20261203_700_fit_data_in_store";
 import * as m1203_300 from "./20261203_300_signed_records";
 import * as m1203_310 from "./20261203_310_audit_chain";
+import * as m1204_100 from "./20261204_100_run_osmolality_minutes";
 
 /**
  * Every migration, in order. Adding one: create `db/migrations/<date>_<nnn>_<name>.ts` exporting `up` and `down`,
@@ -35,6 +36,7 @@ const MIGRATIONS: [string, Knex.Migration][] = [
   ["20261203_700_fit_data_in_store", m700],
   ["20261203_300_signed_records", m1203_300],
   ["20261203_310_audit_chain", m1203_310],
+  ["20261204_100_run_osmolality_minutes", m1204_100],
 ];
 
 /** Knex migration source backed by the list above. */

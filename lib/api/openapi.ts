@@ -3,6 +3,7 @@
  * zod's `z.toJSONSchema`, so the document cannot drift from what the routes accept.
  */
 import { CSV_PATHS } from "./csv-routes";
+import { RUN_PATHS, runSchemas } from "./run-routes";
 import { z } from "zod";
 import { ENGINE_VERSION } from "@/lib/dielectric";
 import { MAX_JSON_BYTES } from "@/lib/http/body";
@@ -105,7 +106,8 @@ export function buildOpenApiDocument(routes: RouteDoc[] = ROUTE_DOCS) {
     schemas[r.responseName] = r.responseSchema;
     paths[r.path] = { [r.method]: operation(r) };
   }
-  Object.assign(paths, CSV_PATHS);
+  Object.assign(paths, CSV_PATHS, RUN_PATHS);
+  Object.assign(schemas, runSchemas(requestJsonSchema));
   return {
     openapi: "3.1.0",
     info: {

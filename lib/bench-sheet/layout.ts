@@ -14,6 +14,7 @@ import { formatUtcMinute } from "@/lib/format/time";
 import {
   formatCellDensity,
   formatFrequency,
+  frequencyUnitFor,
   formatGrams,
   formatMeterConductivity,
   formatMillilitres,
@@ -102,6 +103,15 @@ function bufferSection(source: BenchSheetSource, options: BenchSheetOptions): Sh
       text: `Predicted for this recipe (model): ${formatMeterConductivity(recipe.conductivity25, { withSI: true })} at 25 °C, ${formatOsmolality(toSI("mOsm_kg", recipe.osmolality))}.`,
     },
   ];
+}
+
+/**
+ * The hand-filled run-record lines, the frequency blank in the unit the settings section prints the frequency in (the
+ * web run form asks in the same unit).
+ * @example recordLines(1.2e6).find((l) => l.label === "Frequency set")?.unit // "MHz"
+ */
+export function recordLines(frequencyHz: number): { label: string; unit?: string; lines?: number }[] {
+  return RECORD_LINES.map((l) => (l.label === "Frequency set" ? { ...l, unit: frequencyUnitFor(frequencyHz, 4) } : l));
 }
 
 /**
@@ -265,7 +275,7 @@ export function buildBenchSheet(source: BenchSheetSource, options: BenchSheetOpt
     settings: () => settingsSection(source),
     populations: () => populationsSection(source),
     warnings: () => warningsSection(source),
-    record: () => [{ kind: "record", lines: RECORD_LINES }],
+    record: () => [{ kind: "record", lines: recordLines(content.selection.frequency) }],
     cautions: () => [{ kind: "bullets", items: CAUTIONS }],
   };
   const sections: SheetSection[] = SECTION_ORDER.map((id) => ({ id, title: SECTION_TITLES[id], blocks: builders[id]() }));

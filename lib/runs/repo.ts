@@ -18,7 +18,7 @@ export interface Attachment {
   createdAt: Date;
 }
 
-/** One bench run record. SI units: S/m, Hz, V; temperatures °C; recovery and purity as fractions. */
+/** One bench run record. SI units: S/m, Hz, V, osmol/kg; temperatures °C; minutes; recovery and purity as fractions. */
 export interface BenchRun {
   id: number;
   versionId: number;
@@ -35,6 +35,10 @@ export interface BenchRun {
   frequencyHz: number;
   voltageVpp: number;
   flowRateUlPerMin: number | null;
+  /** Measured osmolality of the buffer, osmol/kg; null when not measured. */
+  measuredOsmolality: number | null;
+  /** Minutes the cells spent in the low-conductivity buffer; null when not noted. */
+  minutesInBuffer: number | null;
   observedRecovery: number | null;
   observedPurity: number | null;
   countingMethod: string;
@@ -83,6 +87,8 @@ export function toRun(row: Row, attachments: Attachment[] = []): BenchRun {
     frequencyHz: num(row.frequency_hz),
     voltageVpp: num(row.voltage_vpp),
     flowRateUlPerMin: maybeNum(row.flow_rate_ul_per_min),
+    measuredOsmolality: maybeNum(row.measured_osmolality),
+    minutesInBuffer: maybeNum(row.minutes_in_buffer),
     observedRecovery: maybeNum(row.observed_recovery),
     observedPurity: maybeNum(row.observed_purity),
     countingMethod: String(row.counting_method ?? ""),
@@ -109,6 +115,8 @@ export async function insertRun(trx: Conn, r: NewRun): Promise<number> {
     frequency_hz: r.frequencyHz,
     voltage_vpp: r.voltageVpp,
     flow_rate_ul_per_min: r.flowRateUlPerMin,
+    measured_osmolality: r.measuredOsmolality,
+    minutes_in_buffer: r.minutesInBuffer,
     observed_recovery: r.observedRecovery,
     observed_purity: r.observedPurity,
     counting_method: r.countingMethod,

@@ -7,6 +7,7 @@ import { parseOrThrow } from "@/lib/http/zod-issues";
 import { readVersionById } from "@/lib/protocols/queries";
 import { lockVersionState } from "@/lib/protocols/repo";
 import { deleteQuietly } from "@/lib/storage";
+import { toSI } from "@/lib/units/lab";
 import { checkFiles, storeRunFiles, type UploadFile } from "./attachments";
 import { insertAttachment, insertRun, listRunsForVersion, type BenchRun, type NewRun } from "./repo";
 import { recordRunSchema, type RecordRun } from "./schemas";
@@ -20,6 +21,7 @@ export interface RunActor {
 
 /**
  * Converts the form's lab units to the stored SI record and runs the acceptance check (compensated to 25 °C).
+ * Osmolality is stored in osmol/kg (SI), frequency in Hz.
  * @example toNewRun(input, 7, { targetConductivity25: 0.01, tolerance: 0.1 }).measuredConductivity // 0.0105 for 105 µS/cm
  */
 export function toNewRun(input: RecordRun, technicianId: number, buffer: { targetConductivity25: number; tolerance: number }): NewRun {
@@ -36,9 +38,11 @@ export function toNewRun(input: RecordRun, technicianId: number, buffer: { targe
     tolerance: buffer.tolerance,
     conductivityAccepted: check.accepted,
     operatingTemperatureC: input.operatingTemperatureC,
-    frequencyHz: input.frequencyKHz * 1e3,
+    frequencyHz: input.frequencyHz,
     voltageVpp: input.voltageVpp,
     flowRateUlPerMin: input.flowRateUlPerMin ?? null,
+    measuredOsmolality: input.osmolalityMOsmPerKg === undefined ? null : toSI("mOsm_kg", input.osmolalityMOsmPerKg),
+    minutesInBuffer: input.minutesInBuffer ?? null,
     observedRecovery: input.recoveryPercent === undefined ? null : input.recoveryPercent / 100,
     observedPurity: input.purityPercent === undefined ? null : input.purityPercent / 100,
     countingMethod: input.countingMethod,

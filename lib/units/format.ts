@@ -31,6 +31,20 @@ export function formatFrequency(hz: number, digits = 3): string {
   return scaled(hz, 1, "Hz", digits);
 }
 
+/** A frequency unit a person enters values in (the generator's dial: Hz, kHz or MHz). */
+export type FrequencyUnit = "Hz" | "kHz" | "MHz";
+
+/**
+ * The unit `formatFrequency` writes a frequency in (below 1 GHz), so a blank beside a printed value asks for the same
+ * unit the value was printed in; 1 GHz and above read as MHz (generators are set in MHz).
+ * @example frequencyUnitFor(350e3) // "kHz"
+ * @example frequencyUnitFor(999_999, 3) // "MHz" (printed "1 MHz")
+ */
+export function frequencyUnitFor(hz: number, digits = 3): FrequencyUnit {
+  const a = Math.abs(tidyMagnitude(hz, digits));
+  return a >= 1e6 ? "MHz" : a >= 1e3 ? "kHz" : "Hz";
+}
+
 /** The magnitude after rounding, so 999 999 Hz at 3 digits reads "1 MHz", not "1000 kHz". */
 const tidyMagnitude = (value: number, digits: number) => tidy(value, digits);
 

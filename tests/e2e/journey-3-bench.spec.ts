@@ -39,17 +39,27 @@ test("journey 3: technician prints the bench sheet and records a run with an att
   expect(text).toContain("21.25 g"); // hand: 8.5 % w/v sucrose × 250 mL / 100
   expect(text).toContain(code);
   expect(text).not.toContain("NOT FOR BENCH USE");
+  expect(text).toContain("Minutes cells spent in the low-conductivity buffer");
   await snap(page, "journey-3-02-bench-view");
 
+  // The sheet prints 350 kHz, so the form asks for the frequency in kHz, prefilled with the planned value.
+  await expect(page.getByLabel("Frequency (kHz)")).toHaveValue("350");
   await page.getByLabel("Buffer lot").fill("B-E2E-1");
   await page.getByLabel("Measured conductivity (µS/cm)").fill("30000");
+  await page.getByLabel("Measured osmolality (mOsm/kg), optional").fill("5000");
+  await page.getByLabel("Frequency (kHz)").fill("900000");
   await page.getByRole("button", { name: "Record run" }).click();
   await expect(page.getByText("Measured conductivity: 30000 µS/cm is outside the allowed 1 to 20000 µS/cm.")).toBeVisible();
+  await expect(page.getByText("Measured osmolality: 5000 mOsm/kg is outside the allowed 10 to 2000 mOsm/kg.")).toBeVisible();
+  await expect(page.getByText("Frequency: 900000 kHz is outside the allowed 100 Hz to 500 MHz.")).toBeVisible();
   await expect(page.getByText("Temperature of the conductivity reading: enter a number in °C (5 to 45 °C).")).toBeVisible();
   await snap(page, "journey-3-03-field-errors");
 
   await page.getByLabel("Measured conductivity (µS/cm)").fill("104");
   await page.getByLabel("Temperature of the conductivity reading (°C)").fill("23.5");
+  await page.getByLabel("Measured osmolality (mOsm/kg), optional").fill("296");
+  await page.getByLabel("Frequency (kHz)").fill("360");
+  await page.getByLabel("Minutes cells spent in the low-conductivity buffer (min), optional").fill("50");
   await page.getByLabel("Observed recovery (%), optional").fill("87");
   await page.getByLabel("Observed purity (%), optional").fill("94");
   await page.getByLabel("Counting method").fill("haemocytometer, trypan blue");
@@ -66,6 +76,10 @@ test("journey 3: technician prints the bench sheet and records a run with an att
   await expect(runs).toContainText("B-E2E-1");
   await expect(runs).toContainText("gate.png (image/png");
   await expect(runs).toContainText("within range");
+  await expect(runs).toContainText("360 kHz");
+  await expect(runs.getByTestId("run-osmolality")).toHaveText("296 mOsm/kg");
+  await expect(runs.getByTestId("run-minutes")).toContainText("50 min in buffer");
+  await expect(runs.getByTestId("run-minutes")).toContainText("over the 45 min limit"); // the fixture's sheet allows 45 min
   await expect(page.getByTestId("observed-chart")).toBeVisible();
   await snap(page, "journey-3-04-run-recorded");
 

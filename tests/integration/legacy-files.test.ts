@@ -22,7 +22,7 @@ describe("migrating UPLOAD_DIR into the object store", () => {
     await freshSchema();
     const v = await insertBenchVersion(db, { code: "QH-LYM-01", state: "approved" });
     const [tid] = await db("users").insert({ email: "legacy.tech@example.test", name: "Legacy Tech", role: "technician", password_hash: "x" });
-    const runId = await insertRun(db, toNewRun({ versionId: v.versionId, bufferLot: "B-1", conductivityUsPerCm: 100, measuredAtC: 25, operatingTemperatureC: 22, frequencyKHz: 350, voltageVpp: 14, countingMethod: "", deviations: "", notes: "" }, Number(tid), { targetConductivity25: 0.01, tolerance: 0.1 }));
+    const runId = await insertRun(db, toNewRun({ versionId: v.versionId, bufferLot: "B-1", conductivityUsPerCm: 100, measuredAtC: 25, operatingTemperatureC: 22, frequencyHz: 350e3, voltageVpp: 14, countingMethod: "", deviations: "", notes: "" }, Number(tid), { targetConductivity25: 0.01, tolerance: 0.1 }));
     root = await mkdtemp(path.join(tmpdir(), "sw-legacy-"));
     await mkdir(path.join(root, "runs", String(runId)), { recursive: true });
     const add = async (name: string, rel: string, bytes: Uint8Array, recorded: string, mimeType: string) => {

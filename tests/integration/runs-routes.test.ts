@@ -47,6 +47,39 @@ describe("POST /api/v1/runs and GET /api/v1/runs/attachments/{id}", () => {
     expect(new Uint8Array(await file.arrayBuffer())).toEqual(PNG);
   });
 
+  it("stores frequencyHz (SI), still accepts the deprecated frequencyKHz, and keeps osmolality (osmol/kg) and minutes in buffer", async () => {
+    const si = new FormData();
+    si.set("run", JSON.stringify({ ...run(approved.versionId), frequencyKHz: undefined, frequencyHz: 1.25e6, osmolalityMOsmPerKg: 296, minutesInBuffer: 35 }));
+    const a = await post(si, tech);
+    expect(a.status).toBe(201);
+    const saved = (await a.json()).run;
+    expect(saved.frequencyHz).toBe(1.25e6);
+    expect(saved.measuredOsmolality).toBeCloseTo(0.296, 12); // 296 mOsm/kg = 0.296 osmol/kg
+    expect(saved.minutesInBuffer).toBe(35);
+    const row = await db("bench_runs").where({ id: saved.id }).first("frequency_hz", "measured_osmolality", "minutes_in_buffer");
+    expect([Number(row.frequency_hz), Number(row.measured_osmolality), Number(row.minutes_in_buffer)]).toEqual([1.25e6, 0.296, 35]);
+
+    const old = new FormData();
+    old.set("run", JSON.stringify(run(approved.versionId))); // frequencyKHz: "350"
+    const b = await post(old, tech);
+    expect(b.status).toBe(201);
+    const legacy = (await b.json()).run;
+    expect(legacy.frequencyHz).toBe(350000);
+    expect(legacy.measuredOsmolality).toBeNull();
+    expect(legacy.minutesInBuffer).toBeNull();
+
+    const before = Number((await db("bench_runs").count({ n: "*" }).first())?.n);
+    const none = new FormData();
+    none.set("run", JSON.stringify({ ...run(approved.versionId), frequencyKHz: undefined, osmolalityMOsmPerKg: 4000 }));
+    const c = await post(none, tech);
+    expect(c.status).toBe(400);
+    expect((await c.json()).issues).toEqual([
+      { path: "osmolalityMOsmPerKg", message: "Measured osmolality: 4000 mOsm/kg is outside the allowed 10 to 2000 mOsm/kg." },
+      { path: "frequencyHz", message: "Frequency: enter frequencyHz, the frequency set on the generator in Hz (100 Hz to 500 MHz)." },
+    ]);
+    expect(Number((await db("bench_runs").count({ n: "*" }).first())?.n)).toBe(before);
+  });
+
   it("refuses a developer (403), a missing run field (400) and a body declared too large (413), storing nothing", async () => {
     const before = Number((await db("bench_runs").count({ n: "*" }).first())?.n);
     const form = new FormData();

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { buildBenchSheet, osmolalityAcceptance } from "@/lib/bench-sheet/layout";
+import { buildBenchSheet, osmolalityAcceptance, recordLines } from "@/lib/bench-sheet/layout";
 import { defaultPopulationSpec } from "@/lib/populations/spec";
 import { isBenchReady } from "@/lib/protocols/states";
 import { SECTION_ORDER } from "@/templates/bench-sheet/layout";
@@ -32,6 +32,13 @@ describe("buildBenchSheet", () => {
     const layout = buildBenchSheet(source, options);
     expect(layout.mark).toBe("NOT FOR BENCH USE");
     expect(text(layout)).toContain("does not match the content hash that was signed");
+  });
+
+  it("asks for the frequency on the run record in the unit the settings print it in (the web run form asks the same)", () => {
+    const record = buildBenchSheet(fixtureSource(), options).sections.find((x) => x.id === "record")!.blocks[0];
+    expect(record.kind === "record" && record.lines.find((l) => l.label === "Frequency set")?.unit).toBe("kHz"); // fixture: 350 kHz
+    expect(recordLines(1.2e6).find((l) => l.label === "Frequency set")?.unit).toBe("MHz");
+    expect(recordLines(1.2e6).map((l) => l.label)).toContain("Minutes cells spent in the low-conductivity buffer");
   });
 
   it("prints the recipe for the chosen volume and the acceptance table at 20, 22 and 25 °C", () => {

@@ -2,11 +2,19 @@ import { describe, expect, it } from "vitest";
 import {
   formatCapacitance, formatCellDensity, formatConductivity, formatFlow, formatFrequency, formatGrams, formatLength, formatMeterConductivity,
   formatMillilitres, formatOsmolality, formatPercent, formatPercentFixed, formatPerCubicMetre, formatQuantity, formatSI, formatTemperature,
-  formatTemperatureRise, formatVelocity, formatVpp, formatVrms,
+  formatTemperatureRise, formatVelocity, formatVpp, formatVrms, frequencyUnitFor,
 } from "@/lib/units/format";
 import { toSI } from "@/lib/units/lab";
 
 describe("one convention per quantity kind", () => {
+  it("frequencyUnitFor names the unit formatFrequency prints in, so a blank beside a printed value asks for the same unit", () => {
+    for (const hz of [50, 999, 250e3, 999999, 1.5e6, 9085180, 4.2e8]) {
+      expect(formatFrequency(hz, 4).endsWith(` ${frequencyUnitFor(hz, 4)}`)).toBe(true);
+    }
+    expect(frequencyUnitFor(999999, 3)).toBe("MHz"); // printed "1 MHz" at 3 digits
+    expect(frequencyUnitFor(350e3)).toBe("kHz");
+  });
+
   it("frequency: Hz, kHz, MHz (SI prefixes k = 10³, M = 10⁶, G = 10⁹, BIPM SI Brochure 9th ed. Table 7)", () => {
     expect(formatFrequency(50)).toBe("50 Hz");
     expect(formatFrequency(250e3)).toBe("250 kHz");

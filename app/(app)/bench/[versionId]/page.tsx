@@ -13,6 +13,7 @@ import { formatUtcMinute } from "@/lib/format/time";
 import { loadSheetSourceById } from "@/lib/bench-sheet/source";
 import { isBenchReady, STATE_LABELS } from "@/lib/protocols/states";
 import { maxUploadBytes } from "@/lib/runs/attachments";
+import { frequencyEntry } from "@/lib/runs/schemas";
 
 export const metadata: Metadata = { title: "Bench view" };
 
@@ -53,7 +54,7 @@ export default async function BenchVersionPage({ params }: { params: Promise<{ v
           <RunForm
             versionId={version.id}
             maxUploadMb={Math.round(maxUploadBytes() / 1024 / 1024)}
-            defaults={{ operatingTemperatureC: s.temperatureC, frequencyKHz: tidy(s.frequency / 1e3, 4), voltageVpp: tidy(s.voltageVpp, 3), flowRateUlPerMin: s.flowRateUlPerMin }}
+            defaults={{ operatingTemperatureC: s.temperatureC, frequency: frequencyEntry(s.frequency), voltageVpp: tidy(s.voltageVpp, 3), flowRateUlPerMin: s.flowRateUlPerMin, maxMinutesInBuffer: content.buffer.maxMinutesInBuffer }}
           />
         </section>
       )}
