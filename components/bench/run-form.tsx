@@ -10,8 +10,8 @@ import type { FrequencyUnit } from "@/lib/units/format";
 import { formatMeterConductivity } from "@/lib/units/format";
 import { useHydrated } from "@/components/forms/use-hydrated";
 
-type In = z.input<typeof runFormSchema>;
-type Out = z.output<typeof runFormSchema>;
+type In = z.input<ReturnType<typeof runFormSchema>>;
+type Out = z.output<ReturnType<typeof runFormSchema>>;
 type NumberField = Exclude<keyof typeof RUN_LIMITS, "frequencyHz" | "frequencyKHz">;
 
 /** Planned settings used to prefill the form (lab units); the technician changes what differed. */
@@ -53,7 +53,6 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
     osmolalityMOsmPerKg: "",
     operatingTemperatureC: String(defaults.operatingTemperatureC),
     frequency: String(defaults.frequency.value),
-    frequencyUnit: defaults.frequency.unit,
     voltageVpp: String(defaults.voltageVpp),
     flowRateUlPerMin: defaults.flowRateUlPerMin === null ? "" : String(defaults.flowRateUlPerMin),
     minutesInBuffer: "",
@@ -64,7 +63,7 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
     notes: "",
   };
   const { register, handleSubmit, setError, reset, formState: { errors, isSubmitting } } = useForm<In, unknown, Out>({
-    resolver: zodResolver(runFormSchema),
+    resolver: zodResolver(runFormSchema(defaults.frequency.unit)),
     defaultValues: initial,
   });
   const msg = (k: keyof In) => errors[k]?.message as string | undefined;
@@ -73,7 +72,7 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
     setStatus(null);
     setFileError(null);
     const body = new FormData();
-    body.set("run", JSON.stringify(toRunRecord(values)));
+    body.set("run", JSON.stringify(toRunRecord(values, defaults.frequency.unit)));
     for (const f of files) body.append("attachments", f);
     const res = await fetch("/api/v1/runs", { method: "POST", body });
     const json = await res.json().catch(() => ({}));
@@ -102,7 +101,6 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
   return (
     <form onSubmit={handleSubmit(onSubmit)} className="space-y-5" noValidate data-testid="run-form">
       <input type="hidden" {...register("versionId")} />
-      <input type="hidden" {...register("frequencyUnit")} />
       <fieldset className="grid gap-4 sm:grid-cols-4">
         <legend className="mb-2 font-medium">Buffer</legend>
         <label className="field">
@@ -125,7 +123,7 @@ export function RunForm({ versionId, defaults, maxUploadMb }: { versionId: numbe
         </label>
         <NumberInput name="voltageVpp" register={register} error={msg("voltageVpp")} />
         <NumberInput name="flowRateUlPerMin" register={register} error={msg("flowRateUlPerMin")} optional />
-        <NumberInput name="minutesInBuffer" register={register} error={msg("minutesInBuffer")} optional hint={`the sheet allows ${defaults.maxMinutesInBuffer} min`} />
+        <NumberInput name="minutesInBuffer" register={register} error={msg("minutesInBuffer")} optional hint={`from first contact with the low-conductivity buffer; the sheet allows ${defaults.maxMinutesInBuffer} min`} />
       </fieldset>
       <fieldset className="grid gap-4 sm:grid-cols-3">
         <legend className="mb-2 font-medium">Observed</legend>

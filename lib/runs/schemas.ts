@@ -20,7 +20,7 @@ export const RUN_LIMITS = {
   frequencyKHz: { min: 0.1, max: 500000, unit: "kHz", label: "Frequency" },
   voltageVpp: { min: 0.1, max: 200, unit: "Vpp", label: "Voltage" },
   flowRateUlPerMin: { min: 0, max: 10000, unit: "µL/min", label: "Flow rate" },
-  minutesInBuffer: { min: 0, max: 1440, unit: "min", label: "Minutes cells spent in the low-conductivity buffer" },
+  minutesInBuffer: { min: 0, max: 1440, unit: "min", label: "Minutes cells spent in the buffer" },
   recoveryPercent: { min: 0, max: 100, unit: "%", label: "Observed recovery" },
   purityPercent: { min: 0, max: 100, unit: "%", label: "Observed purity" },
 } as const;
@@ -28,6 +28,8 @@ type LimitKey = keyof typeof RUN_LIMITS;
 
 /** The allowed frequency range in words, e.g. "100 Hz to 500 MHz". */
 export const FREQUENCY_RANGE_TEXT = `${formatFrequency(RUN_LIMITS.frequencyHz.min)} to ${formatFrequency(RUN_LIMITS.frequencyHz.max)}`;
+
+const isBlank = (v: unknown) => v === undefined || v === null || (typeof v === "string" && v.trim() === "") || (typeof v === "number" && Number.isNaN(v));
 
 function toNumberOrBlank(v: unknown): unknown {
   if (v === null || v === undefined) return undefined;
@@ -94,11 +96,15 @@ export const recordRunSchema = z
     frequencyHz: optional("frequencyHz", FREQUENCY_RANGE_TEXT).describe(`Frequency set on the generator, Hz (${FREQUENCY_RANGE_TEXT}). Required unless the deprecated frequencyKHz is given.`),
     frequencyKHz: optional("frequencyKHz").meta({ deprecated: true, description: "Deprecated: the frequency in kHz. Use frequencyHz; give one of the two, not both." }),
   })
+  .superRefine(countingRule)
+  // Checked even when other fields are wrong (`when`), so every missing field is named at once.
+  .refine((r) => !isBlank(r?.frequencyHz) || !isBlank(r?.frequencyKHz), {
+    path: ["frequencyHz"],
+    message: `Frequency: enter frequencyHz, the frequency set on the generator in Hz (${FREQUENCY_RANGE_TEXT}).`,
+    when: () => true,
+  })
   .superRefine((r, ctx) => {
-    countingRule(r, ctx);
-    if (r.frequencyHz === undefined && r.frequencyKHz === undefined)
-      ctx.addIssue({ code: "custom", path: ["frequencyHz"], message: `Frequency: enter frequencyHz, the frequency set on the generator in Hz (${FREQUENCY_RANGE_TEXT}).` });
-    else if (r.frequencyHz !== undefined && r.frequencyKHz !== undefined)
+    if (r.frequencyHz !== undefined && r.frequencyKHz !== undefined)
       ctx.addIssue({ code: "custom", path: ["frequencyKHz"], message: `Frequency: give frequencyHz (${r.frequencyHz} Hz) or the deprecated frequencyKHz (${r.frequencyKHz} kHz), not both.` });
   })
   .meta({ description: "A bench run record in lab units (µS/cm, °C, mOsm/kg, Vpp, µL/min, min, %), with the frequency in Hz. Give frequencyHz, or the deprecated frequencyKHz, not both. Optional numbers may be left out." })
@@ -107,32 +113,29 @@ export type RecordRunInput = z.input<typeof recordRunSchema>;
 export type RecordRun = z.output<typeof recordRunSchema>;
 
 /**
- * The web form's schema: the same fields, with the frequency entered in the unit the bench sheet prints it in
- * (`frequencyUnit`, from `frequencyUnitFor` of the planned frequency). `toRunRecord` turns its output into the API body.
- * @example runFormSchema.parse({ …, frequency: "1.5", frequencyUnit: "MHz" }).frequency // 1.5
+ * The web form's schema for a frequency entered in `unit`, the unit the bench sheet prints the planned frequency in
+ * (`frequencyEntry`): the same fields as the API, with `frequency` in that unit, checked against the same range.
+ * `toRunRecord` turns its output into the API body.
+ * @example runFormSchema("MHz").parse({ …, frequency: "1.5" }).frequency // 1.5
  */
-export const runFormSchema = z
-  .object({
-    ...commonFields,
-    frequencyUnit: z.enum(["Hz", "kHz", "MHz"]),
-    frequency: z.preprocess(toNumberOrBlank, z.number({ error: "Frequency: enter a number." })),
-  })
-  .superRefine((r, ctx) => {
-    countingRule(r, ctx);
-    const hz = toSI(r.frequencyUnit, r.frequency);
-    if (!Number.isFinite(r.frequency)) ctx.addIssue({ code: "custom", path: ["frequency"], message: `Frequency: enter a number in ${r.frequencyUnit} (${FREQUENCY_RANGE_TEXT}).` });
-    else if (hz < RUN_LIMITS.frequencyHz.min || hz > RUN_LIMITS.frequencyHz.max)
-      ctx.addIssue({ code: "custom", path: ["frequency"], message: `Frequency: ${r.frequency} ${r.frequencyUnit} is outside the allowed ${FREQUENCY_RANGE_TEXT}.` });
+export function runFormSchema(unit: FrequencyUnit) {
+  const range = `Frequency: enter a number in ${unit} (${FREQUENCY_RANGE_TEXT}).`;
+  const frequency = z.number({ error: range }).superRefine((v, ctx) => {
+    const hz = toSI(unit, v);
+    if (!Number.isFinite(v)) ctx.addIssue({ code: "custom", message: range });
+    else if (hz < RUN_LIMITS.frequencyHz.min || hz > RUN_LIMITS.frequencyHz.max) ctx.addIssue({ code: "custom", message: `Frequency: ${v} ${unit} is outside the allowed ${FREQUENCY_RANGE_TEXT}.` });
   });
-export type RunFormInput = z.input<typeof runFormSchema>;
-export type RunForm = z.output<typeof runFormSchema>;
+  return z.object({ ...commonFields, frequency: z.preprocess(toNumberOrBlank, frequency) }).superRefine(countingRule);
+}
+export type RunFormInput = z.input<ReturnType<typeof runFormSchema>>;
+export type RunForm = z.output<ReturnType<typeof runFormSchema>>;
 
 /**
- * The API body of a checked form: the frequency in Hz.
- * @example toRunRecord({ …, frequency: 1.5, frequencyUnit: "MHz" }).frequencyHz // 1500000
+ * The API body of a checked form: the frequency converted from the form's unit to Hz.
+ * @example toRunRecord({ …, frequency: 1.5 }, "MHz").frequencyHz // 1500000
  */
-export function toRunRecord({ frequency, frequencyUnit, ...rest }: RunForm): RecordRunInput {
-  return { ...rest, frequencyHz: toSI(frequencyUnit, frequency) };
+export function toRunRecord({ frequency, ...rest }: RunForm, unit: FrequencyUnit): RecordRunInput {
+  return { ...rest, frequencyHz: toSI(unit, frequency) };
 }
 
 /**

@@ -84,7 +84,7 @@ export const RECORD_LINES: { label: string; unit?: string; lines?: number }[] = 
   { label: "Frequency set", unit: "kHz" }, // unit replaced by the one the sheet prints the frequency in
   { label: "Voltage set", unit: "Vpp" },
   { label: "Flow rate", unit: "µL/min" },
-  { label: "Minutes cells spent in the low-conductivity buffer", unit: "min" },
+  { label: "Minutes cells spent in the buffer", unit: "min" },
   { label: "Observed recovery", unit: "%" },
   { label: "Observed purity", unit: "%" },
   { label: "Counting method" },

@@ -39,7 +39,8 @@ test("journey 3: technician prints the bench sheet and records a run with an att
   expect(text).toContain("21.25 g"); // hand: 8.5 % w/v sucrose × 250 mL / 100
   expect(text).toContain(code);
   expect(text).not.toContain("NOT FOR BENCH USE");
-  expect(text).toContain("Minutes cells spent in the low-conductivity buffer");
+  expect(text).toContain("Frequency set kHz"); // the sheet prints 350 kHz; its blank asks in kHz, as the form below
+  expect(text).toContain("Minutes cells spent in the buffer min");
   await snap(page, "journey-3-02-bench-view");
 
   // The sheet prints 350 kHz, so the form asks for the frequency in kHz, prefilled with the planned value.
@@ -59,7 +60,7 @@ test("journey 3: technician prints the bench sheet and records a run with an att
   await page.getByLabel("Temperature of the conductivity reading (°C)").fill("23.5");
   await page.getByLabel("Measured osmolality (mOsm/kg), optional").fill("296");
   await page.getByLabel("Frequency (kHz)").fill("360");
-  await page.getByLabel("Minutes cells spent in the low-conductivity buffer (min), optional").fill("50");
+  await page.getByLabel("Minutes cells spent in the buffer (min), optional").fill("50");
   await page.getByLabel("Observed recovery (%), optional").fill("87");
   await page.getByLabel("Observed purity (%), optional").fill("94");
   await page.getByLabel("Counting method").fill("haemocytometer, trypan blue");

@@ -38,7 +38,7 @@ describe("buildBenchSheet", () => {
     const record = buildBenchSheet(fixtureSource(), options).sections.find((x) => x.id === "record")!.blocks[0];
     expect(record.kind === "record" && record.lines.find((l) => l.label === "Frequency set")?.unit).toBe("kHz"); // fixture: 350 kHz
     expect(recordLines(1.2e6).find((l) => l.label === "Frequency set")?.unit).toBe("MHz");
-    expect(recordLines(1.2e6).map((l) => l.label)).toContain("Minutes cells spent in the low-conductivity buffer");
+    expect(recordLines(1.2e6).map((l) => l.label)).toContain("Minutes cells spent in the buffer");
   });
 
   it("prints the recipe for the chosen volume and the acceptance table at 20, 22 and 25 °C", () => {

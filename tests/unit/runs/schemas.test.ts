@@ -16,6 +16,10 @@ describe("recordRunSchema (API and service)", () => {
     expect(out).not.toHaveProperty("frequencyKHz");
   });
 
+  it("names a missing frequency together with other missing fields", () => {
+    expect(issues(recordRunSchema.safeParse({ ...base, measuredAtC: "" })).map((i) => i.path)).toEqual(["measuredAtC", "frequencyHz"]);
+  });
+
   it("wants one of the two frequency fields, not none and not both", () => {
     expect(issues(recordRunSchema.safeParse(base))).toEqual([{ path: "frequencyHz", message: "Frequency: enter frequencyHz, the frequency set on the generator in Hz (100 Hz to 500 MHz)." }]);
     expect(issues(recordRunSchema.safeParse({ ...base, frequencyHz: 350000, frequencyKHz: 350 }))).toEqual([
@@ -36,7 +40,7 @@ describe("recordRunSchema (API and service)", () => {
     expect(blank.minutesInBuffer).toBeUndefined();
     expect(issues(recordRunSchema.safeParse({ ...base, frequencyHz: 350000, osmolalityMOsmPerKg: 5000, minutesInBuffer: -3 }))).toEqual([
       { path: "osmolalityMOsmPerKg", message: "Measured osmolality: 5000 mOsm/kg is outside the allowed 10 to 2000 mOsm/kg." },
-      { path: "minutesInBuffer", message: "Minutes cells spent in the low-conductivity buffer: -3 min is outside the allowed 0 to 1440 min." },
+      { path: "minutesInBuffer", message: "Minutes cells spent in the buffer: -3 min is outside the allowed 0 to 1440 min." },
     ]);
     expect(issues(recordRunSchema.safeParse({ ...base, frequencyHz: 350000, osmolalityMOsmPerKg: "about 300" }))).toEqual([
       { path: "osmolalityMOsmPerKg", message: "Measured osmolality: enter a number in mOsm/kg (10 to 2000 mOsm/kg)." },
@@ -46,16 +50,18 @@ describe("recordRunSchema (API and service)", () => {
 
 describe("runFormSchema (the web form, frequency in the bench sheet's unit)", () => {
   it("turns a frequency in MHz into the API's frequencyHz (1 MHz = 10⁶ Hz, SI prefix)", () => {
-    const form = runFormSchema.parse({ ...base, frequency: "1.5", frequencyUnit: "MHz" });
-    const body = toRunRecord(form);
+    const form = runFormSchema("MHz").parse({ ...base, frequency: "1.5" });
+    const body = toRunRecord(form, "MHz");
     expect(body.frequencyHz).toBe(1.5e6);
     expect(body).not.toHaveProperty("frequency");
     expect(recordRunSchema.parse(body).frequencyHz).toBe(1.5e6);
   });
 
   it("says the range in words when the value in the form's unit is out of range", () => {
-    expect(issues(runFormSchema.safeParse({ ...base, frequency: "600", frequencyUnit: "MHz" }))).toEqual([{ path: "frequency", message: "Frequency: 600 MHz is outside the allowed 100 Hz to 500 MHz." }]);
-    expect(issues(runFormSchema.safeParse({ ...base, frequency: "", frequencyUnit: "kHz" }))).toEqual([{ path: "frequency", message: "Frequency: enter a number." }]);
+    expect(issues(runFormSchema("MHz").safeParse({ ...base, frequency: "600" }))).toEqual([{ path: "frequency", message: "Frequency: 600 MHz is outside the allowed 100 Hz to 500 MHz." }]);
+    expect(issues(runFormSchema("kHz").safeParse({ ...base, frequency: "" }))).toEqual([{ path: "frequency", message: "Frequency: enter a number in kHz (100 Hz to 500 MHz)." }]);
+    // named together with the other wrong fields, not only after they are fixed
+    expect(issues(runFormSchema("kHz").safeParse({ ...base, measuredAtC: "", frequency: "900000" })).map((i) => i.path)).toEqual(["measuredAtC", "frequency"]);
   });
 
   it("prefills the planned frequency in the unit the bench sheet prints it in, to 4 digits", () => {
