@@ -7,6 +7,7 @@ import type { PopulationSpec } from "@/lib/populations/spec";
 import type { PopulationFormValues, PopulationsStepValues } from "@/lib/wizard/population-form";
 import { specToForm } from "@/lib/wizard/population-form";
 import type { StartingPoint } from "@/lib/wizard/starting-points";
+import { SaveToLibrary } from "./save-to-library";
 
 /** A population the library offers (current version, SI spec). */
 export interface LibraryPopulation {
@@ -21,7 +22,7 @@ export interface LibraryPopulation {
  * One population of the planner's step (target or other): pick from the library or a starting point, name it, and
  * edit its shell model with the shared population editor.
  */
-export function PopulationCard({ which, heading, values, register, setValue, errors, library, starts }: {
+export function PopulationCard({ which, heading, values, register, setValue, errors, library, starts, canSaveToLibrary }: {
   which: "target" | "other";
   heading: string;
   values: PopulationFormValues;
@@ -30,6 +31,8 @@ export function PopulationCard({ which, heading, values, register, setValue, err
   errors: FieldErrors<PopulationsStepValues>;
   library: LibraryPopulation[];
   starts: StartingPoint[];
+  /** The viewer may write the library (capability library.edit). */
+  canSaveToLibrary: boolean;
 }) {
   const id = (path: string) => `${which}-${path.replace(/\./g, "-")}`;
   const err = (path: string) => errorAt(errors, `${which}.${path}`);
@@ -63,7 +66,7 @@ export function PopulationCard({ which, heading, values, register, setValue, err
               {starts.map((s) => <option key={s.key} value={`start:${s.key}`}>{s.label}</option>)}
             </optgroup>
           </select>
-          <p className="hint">{values.libraryRef ? `From the library (item ${values.libraryRef.id}, version ${values.libraryRef.version}); editing here does not change the library.` : "Defined here; save it to the library later if you want to reuse it."}</p>
+          <p className="hint">{values.libraryRef ? `From the library (item ${values.libraryRef.id}, version ${values.libraryRef.version}); editing here does not change the library.` : "Defined here; save it to the library (below) if you want to reuse it."}</p>
         </div>
         <div className="field">
           <label htmlFor={id("name")} className="mb-1 block font-medium text-ink-soft">Name</label>
@@ -73,6 +76,7 @@ export function PopulationCard({ which, heading, values, register, setValue, err
       </div>
 
       <PopulationEditor prefix={which} idPrefix={which} model={values.model} register={register} errors={errors} />
+      <SaveToLibrary which={which} values={values} allowed={canSaveToLibrary} onSaved={(ref) => setValue(`${which}.libraryRef`, ref, { shouldDirty: true })} />
     </fieldset>
   );
 }

@@ -12,13 +12,15 @@ import { StepFooter } from "./step-footer";
 import { useAutosave } from "./use-autosave";
 
 /** Step 1: the target population and the one to remove, with a live Re[K] preview of both. */
-export function PopulationsStep({ draftId, initial, library, starts, medium, mediumNote }: {
+export function PopulationsStep({ draftId, initial, library, starts, medium, mediumNote, canSaveToLibrary }: {
   draftId: number;
   initial: PopulationsStepValues;
   library: LibraryPopulation[];
   starts: StartingPoint[];
   medium: PreviewInput["medium"];
   mediumNote: string;
+  /** The viewer may write the population library (capability library.edit). */
+  canSaveToLibrary: boolean;
 }) {
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
@@ -48,8 +50,8 @@ export function PopulationsStep({ draftId, initial, library, starts, medium, med
     <form onSubmit={handleSubmit(onValid, () => setFormError("Some fields need attention; each says what is allowed."))} noValidate className="space-y-6">
       <SpectrumPreview input={preview} mediumNote={mediumNote} />
       <div className="grid gap-6 xl:grid-cols-2">
-        <PopulationCard which="target" heading="Target population (to keep)" values={values.target} register={register} setValue={setValue} errors={errors} library={library} starts={starts} />
-        <PopulationCard which="other" heading="Population to remove" values={values.other} register={register} setValue={setValue} errors={errors} library={library} starts={starts} />
+        <PopulationCard which="target" heading="Target population (to keep)" values={values.target} register={register} setValue={setValue} errors={errors} library={library} starts={starts} canSaveToLibrary={canSaveToLibrary} />
+        <PopulationCard which="other" heading="Population to remove" values={values.other} register={register} setValue={setValue} errors={errors} library={library} starts={starts} canSaveToLibrary={canSaveToLibrary} />
       </div>
       <StepFooter backHref="/planner" nextLabel="Next: buffer" state={state} busy={isSubmitting} formError={formError} />
     </form>

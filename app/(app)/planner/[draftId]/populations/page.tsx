@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { PopulationsStep } from "@/components/planner/populations-step";
+import { can } from "@/lib/auth/roles";
 import { StepHeader } from "@/components/planner/step-header";
 import { pickablePopulations } from "@/lib/wizard/library-picks";
 import { loadStep } from "@/lib/wizard/drafts/page-data";
@@ -16,7 +17,7 @@ function defaults(): PopulationsStepValues {
 }
 
 export default async function PopulationsPage({ params }: { params: Promise<{ draftId: string }> }) {
-  const { draft, done } = await loadStep(params);
+  const { user, draft, done } = await loadStep(params);
   const library = await pickablePopulations();
   const { medium, note } = previewMedium(draft.inputs);
   const initial = (draft.inputs.populations as PopulationsStepValues | undefined) ?? defaults();
@@ -26,7 +27,7 @@ export default async function PopulationsPage({ params }: { params: Promise<{ dr
         The population you want to keep and the one to remove — typically live and dead cells of the same sample. Pick them from the
         library or a starting point, or describe them with a shell model. Every number carries its unit; spreads are coefficients of variation.
       </StepHeader>
-      <PopulationsStep draftId={draft.id} initial={initial} library={library} starts={STARTING_POINTS} medium={medium} mediumNote={note} />
+      <PopulationsStep draftId={draft.id} initial={initial} library={library} starts={STARTING_POINTS} medium={medium} mediumNote={note} canSaveToLibrary={can(user.role, "library.edit")} />
     </>
   );
 }
