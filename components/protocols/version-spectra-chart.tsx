@@ -1,6 +1,8 @@
 "use client";
 
 import dynamic from "next/dynamic";
+import { useRef } from "react";
+import { ChartDownloads } from "@/components/charts/chart-downloads";
 import type { SpectrumLine } from "@/components/charts/spectra-chart";
 
 const CHART_HEIGHT = 320;
@@ -18,7 +20,14 @@ const SpectraChart = dynamic(() => import("@/components/charts/spectra-chart").t
   ),
 });
 
-/** Client wrapper of the version page's spectra chart (see SpectraChart for the props). */
-export function VersionSpectraChart(props: { lines: SpectrumLine[]; marker: number; title: string }) {
-  return <SpectraChart {...props} height={CHART_HEIGHT} />;
+/** Client wrapper of the version page's spectra chart (see SpectraChart for the props), with SVG and PNG downloads. */
+export function VersionSpectraChart(props: { lines: SpectrumLine[]; marker: number; title: string; fileName: string }) {
+  const box = useRef<HTMLDivElement>(null);
+  const { fileName, ...chart } = props;
+  return (
+    <div>
+      <div className="mb-1 flex justify-end"><ChartDownloads name={fileName} label="Download the chart" container={box} /></div>
+      <div ref={box}><SpectraChart {...chart} height={CHART_HEIGHT} /></div>
+    </div>
+  );
 }

@@ -4,13 +4,15 @@ import type { ProtocolContent } from "@/lib/protocols/content";
 import { timedSync } from "@/lib/http/page-timing";
 import { versionSpectra } from "@/lib/protocols/version-spectra";
 import { VersionSpectraChart } from "./version-spectra-chart";
+import { exportFileName } from "@/lib/exports/planner-csv";
 
 /**
  * Re[K] spectra of both populations in the version's medium (recomputed from the frozen content with the fixed seed,
  * once per content hash), with the chosen frequency marked. The crossovers are stated in words on the server; the
- * chart itself is drawn in the browser. Read-only; a model failure is shown in words, not as an empty chart.
+ * chart itself is drawn in the browser, with SVG and PNG downloads named after `fileLabel` (e.g. "PRT-0001 v2").
+ * Read-only; a model failure is shown in words, not as an empty chart.
  */
-export function VersionSpectra({ content, contentHash }: { content: ProtocolContent; contentHash: string }) {
+export function VersionSpectra({ content, contentHash, fileLabel }: { content: ProtocolContent; contentHash: string; fileLabel: string }) {
   const s = content.selection;
   const spectra = timedSync("spectra", () => versionSpectra(content, contentHash));
   if (!spectra.ok) return <p className="notice">The spectra could not be drawn from this content: {spectra.message}</p>;
@@ -21,7 +23,7 @@ export function VersionSpectra({ content, contentHash }: { content: ProtocolCont
       <p className="hint mb-3">
         {formatConductivity(s.conductivity)}, {formatTemperature(s.temperatureC)}; the marker is the drive frequency {formatFrequency(s.frequency)}. Bands: about the middle 80 % of sampled cells.
       </p>
-      <VersionSpectraChart lines={lines} marker={s.frequency} title={`Re[K] of ${lines[0].label} and ${lines[1].label} against frequency`} />
+      <VersionSpectraChart lines={lines} marker={s.frequency} title={`Re[K] of ${lines[0].label} and ${lines[1].label} against frequency`} fileName={exportFileName(fileLabel, "spectra", "").replace(/\.$/, "")} />
       <ul className="mt-2 text-sm text-ink-soft" data-testid="version-crossovers">
         {lines.map((l) => (
           <li key={l.key}>

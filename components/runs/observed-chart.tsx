@@ -1,7 +1,9 @@
 "use client";
 
+import { useRef } from "react";
 import { VictoryAxis, VictoryChart, VictoryLegend, VictoryLine, VictoryScatter } from "victory";
 import { formatPercentFixed } from "@/lib/units/format";
+import { ChartDownloads } from "@/components/charts/chart-downloads";
 
 /** One run's observations (fractions 0–1; null where not counted). */
 export interface ObservedPoint {
@@ -16,6 +18,7 @@ const MOSS = "#3f6b58";
 /**
  * Predicted recovery and purity (horizontal lines: solid for recovery, dashed for purity) against what each run
  * observed (circles for recovery, squares for purity), in percent. Shapes and dashes carry the meaning, not colour.
+ * SVG and PNG downloads beside it.
  */
 export function ObservedChart({ points, predicted }: { points: ObservedPoint[]; predicted: { recovery: number; purity: number } }) {
   const xs = points.map((p) => p.run);
@@ -24,8 +27,10 @@ export function ObservedChart({ points, predicted }: { points: ObservedPoint[]; 
   const recovery = points.filter((p) => p.recovery !== null).map((p) => ({ x: p.run, y: p.recovery! * 100 }));
   const purity = points.filter((p) => p.purity !== null).map((p) => ({ x: p.run, y: p.purity! * 100 }));
   const yMin = Math.max(0, Math.floor(Math.min(predicted.recovery * 100, predicted.purity * 100, ...recovery.map((d) => d.y), ...purity.map((d) => d.y)) / 10) * 10 - 10);
+  const box = useRef<HTMLElement>(null);
   return (
-    <figure aria-label="Predicted against observed recovery and purity per run" data-testid="observed-chart">
+    <figure ref={box} aria-label="Predicted against observed recovery and purity per run" data-testid="observed-chart">
+      <div className="flex justify-end"><ChartDownloads name="observed-recovery-purity" label="Download the chart" container={box} /></div>
       <VictoryChart height={260} width={640} domain={{ x: [xMin, xMax], y: [yMin, 100] }} padding={{ top: 48, bottom: 44, left: 56, right: 20 }}>
         <VictoryLegend
           x={56}

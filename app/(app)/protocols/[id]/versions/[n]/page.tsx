@@ -9,6 +9,7 @@ import { ResultsView } from "@/components/protocols/results-view";
 import { SignaturesList } from "@/components/protocols/signatures-list";
 import { StatePill } from "@/components/protocols/state-pill";
 import { SubmitButton } from "@/components/protocols/submit-button";
+import { VersionDownloads } from "@/components/protocols/version-downloads";
 import { VersionSpectra } from "@/components/protocols/version-spectra";
 import { VersionRuns } from "@/components/runs/version-runs";
 import { ApproveForm } from "@/components/review/approve-form";
@@ -58,7 +59,8 @@ export default async function VersionPage({ params }: { params: Promise<{ id: st
       <div className="grid items-start gap-5 lg:grid-cols-[1fr_22rem]">
         <div className="min-w-0 space-y-5">
           <ResultsView content={c} />
-          <VersionSpectra content={c} contentHash={integrity.computed} />
+          <VersionSpectra content={c} contentHash={integrity.computed} fileLabel={`${protocol.code} v${v.number}`} />
+          <VersionDownloads protocolId={protocol.id} number={v.number} />
           <InputsView content={c} />
           <VersionRuns version={v} benchReady={v.state === "approved" && signed && integrity.ok} />
         </div>
