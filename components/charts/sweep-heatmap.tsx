@@ -4,8 +4,8 @@ import { useEffect, useMemo, useRef, useState } from "react";
 import { divergingHex, divergingLut, lutIndex } from "@/lib/charts/diverging-scale";
 import { decadeTicks } from "@/lib/charts/ticks";
 import { formatConductivity, formatFrequency } from "@/lib/units/format";
-import { sig } from "@/lib/units/number";
 import { layoutLabels, textWidth } from "@/lib/charts/label-layout";
+import { mapReadout } from "@/lib/wizard/results-data";
 
 /** A window drawn on the map: its conductivity row and band. */
 export interface MapWindow {
@@ -191,7 +191,7 @@ export function SweepHeatmap({ data, marker, bufferConductivity, onPick }: { dat
       />
       <p className="min-h-5 text-xs text-ink-soft" aria-live="off" data-testid="heatmap-readout">
         {hover && k >= 0
-          ? `${formatFrequency(f[hover.j])}, ${formatConductivity(c[hover.i], { meter: true })}: recovery ${sig(data.recovery[k] * 100, 3)} %, purity ${sig(data.purity[k] * 100, 3)} %, ${data.reK ? `target's mean cell Re[K] ${sig(data.reK[k], 2)} (${data.reK[k] >= 0 ? "positive" : "negative"} DEP)` : `target moves by ${data.values[k] >= 0 ? "positive" : "negative"} DEP`}; ${data.feasible[k] ? "meets every limit" : data.blockers?.[k] ? `refused by: ${data.blockers[k]}` : "fails a limit or the separation threshold"}.`
+          ? mapReadout({ frequency: f[hover.j], conductivity: c[hover.i], recovery: data.recovery[k], purity: data.purity[k], reK: data.reK?.[k], separation: data.values[k], feasible: data.feasible[k] === 1, blockers: data.blockers?.[k] })
           : "Point at the map to read the values there."}
       </p>
       <figcaption className="mt-2 space-y-1 text-xs text-ink-soft">

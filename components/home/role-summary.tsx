@@ -1,17 +1,10 @@
 import Link from "next/link";
+import { Figure } from "./figure";
 import type { Role } from "@/lib/auth/roles";
 import { openWorkOf, recentRuns, versionStateCounts, versionsInUse } from "@/lib/dashboard/overview";
 import { formatDate, formatDateTime } from "@/lib/format/time";
 import { formatPercent } from "@/lib/units/format";
 
-function Figure({ label, value, href }: { label: string; value: number; href: string }) {
-  return (
-    <Link href={href} className="card block no-underline hover:bg-paper-deep/40">
-      <p className="text-3xl font-semibold text-ink">{value}</p>
-      <p className="text-sm text-ink-soft">{label}</p>
-    </Link>
-  );
-}
 
 const pct = (v: number | null) => (v === null ? "—" : formatPercent(v));
 
@@ -21,9 +14,9 @@ async function SupervisorSummary() {
   return (
     <div className="space-y-4">
       <div className="grid gap-4 sm:grid-cols-3">
-        <Figure label="approved versions in use" value={counts.approved ?? 0} href="/protocols?state=approved" />
-        <Figure label="versions waiting for QA" value={counts.in_review ?? 0} href="/protocols?state=in_review" />
-        <Figure label="drafts being written" value={(counts.draft ?? 0) + (counts.returned ?? 0)} href="/protocols?state=draft" />
+        <Figure one="approved version in use" many="approved versions in use" value={counts.approved ?? 0} href="/protocols?state=approved" />
+        <Figure one="version waiting for QA" many="versions waiting for QA" value={counts.in_review ?? 0} href="/protocols?state=in_review" />
+        <Figure one="draft being written" many="drafts being written" value={(counts.draft ?? 0) + (counts.returned ?? 0)} href="/protocols?state=draft" />
       </div>
       <section className="card" data-testid="versions-in-use">
         <h2 className="mb-2">Versions in use</h2>
@@ -81,8 +74,8 @@ export async function RoleSummary({ role, userId }: { role: Role; userId: number
     const counts = await versionStateCounts();
     return (
       <div className="grid gap-4 sm:grid-cols-3">
-        <Figure label="versions waiting for your review" value={counts.in_review ?? 0} href="/review" />
-        <Figure label="approved versions in use" value={counts.approved ?? 0} href="/protocols?state=approved" />
+        <Figure one="version waiting for your review" many="versions waiting for your review" value={counts.in_review ?? 0} href="/review" />
+        <Figure one="approved version in use" many="approved versions in use" value={counts.approved ?? 0} href="/protocols?state=approved" />
       </div>
     );
   }
@@ -90,7 +83,7 @@ export async function RoleSummary({ role, userId }: { role: Role; userId: number
     const inUse = await versionsInUse();
     return (
       <div className="grid gap-4 sm:grid-cols-3">
-        <Figure label="signed protocols ready for the bench" value={inUse.length} href="/bench" />
+        <Figure one="signed protocol ready for the bench" many="signed protocols ready for the bench" value={inUse.length} href="/bench" />
       </div>
     );
   }
@@ -98,9 +91,9 @@ export async function RoleSummary({ role, userId }: { role: Role; userId: number
     const work = await openWorkOf(userId);
     return (
       <div className="grid gap-4 sm:grid-cols-3">
-        <Figure label="your drafts" value={work.drafts} href="/protocols?state=draft" />
-        <Figure label="returned to you with comments" value={work.returned} href="/protocols?state=returned" />
-        <Figure label="yours in review" value={work.inReview} href="/protocols?state=in_review" />
+        <Figure one="your draft" many="your drafts" value={work.drafts} href="/protocols?state=draft" />
+        <Figure one="returned to you with comments" many="returned to you with comments" value={work.returned} href="/protocols?state=returned" />
+        <Figure one="yours in review" many="yours in review" value={work.inReview} href="/protocols?state=in_review" />
       </div>
     );
   }

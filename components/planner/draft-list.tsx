@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { ConfirmSubmit } from "@/components/forms/confirm-submit";
+import { formatUtcMinute } from "@/lib/format/time";
 import { discardDraftAction } from "@/lib/wizard/drafts/actions";
 import { STEPS, type StepSlug } from "@/lib/wizard/steps";
 
@@ -32,7 +33,7 @@ export function DraftList({ drafts }: { drafts: DraftSummary[] }) {
             </td>
             <td>{Math.min(d.done.length, STEPS.length)} of {STEPS.length} steps done</td>
             <td>{stepTitle(d.currentStep)}</td>
-            <td><time dateTime={d.updatedAt}>{new Date(d.updatedAt).toISOString().slice(0, 16).replace("T", " ")} UTC</time></td>
+            <td><time dateTime={d.updatedAt}>{formatUtcMinute(new Date(d.updatedAt))}</time></td>
             <td className="text-right">
               <form action={discardDraftAction}>
                 <input type="hidden" name="draftId" value={d.id} />

@@ -10,7 +10,7 @@ import type { ResultsSetup } from "@/lib/wizard/results-setup";
 import { formatConductivity, formatFrequency } from "@/lib/units/format";
 import { sig } from "@/lib/units/number";
 import { postJson } from "@/components/planner/api-client";
-import { blockerNames, parameterLabel, signedSeparation, tornadoBars } from "@/lib/wizard/results-data";
+import { blockerNames, parameterLabel, selectedRank, signedSeparation, tornadoBars } from "@/lib/wizard/results-data";
 import { heatmapSvg } from "@/lib/charts/heatmap-svg";
 import { spectraCsv, sweepMapCsv, windowsCsv } from "@/lib/exports/planner-csv";
 import { ChartDownloads, TextDownload } from "@/components/charts/chart-downloads";
@@ -41,8 +41,7 @@ export function ResultsView(p: ResultsProps) {
   // A selection belongs to the result it was made on: a recomputed result starts again from window #1, unless the
   // saved window (same conductivity and band) is still among the new windows.
   const [choice, setChoice] = useState<{ result: WindowsResult | undefined; rank: number | null }>({ result: undefined, rank: null });
-  const savedRank = p.initialWindow ? windows.find((w) => w.conductivity === p.initialWindow!.conductivity && w.bandStart === p.initialWindow!.bandStart && w.bandStop === p.initialWindow!.bandStop)?.rank ?? null : null;
-  const rank = choice.result === result ? choice.rank : savedRank;
+  const rank = selectedRank(choice, result, p.initialWindow);
   const setRank = (r: number) => setChoice({ result, rank: r });
   const selected = windows.find((w) => w.rank === rank) ?? windows[0] ?? null;
   const selRank = selected?.rank ?? null;

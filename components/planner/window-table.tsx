@@ -1,10 +1,8 @@
 import type { OperatingWindow } from "@/lib/planner";
-import { formatConductivity, formatFrequency } from "@/lib/units/format";
+import { formatConductivity, formatDecades, formatFrequency } from "@/lib/units/format";
 import { sig } from "@/lib/units/number";
 
 const pct = (x: number) => `${sig(x * 100, 3)} %`;
-/** "1 decade", "0.42 decades": singular only when the shown number is exactly 1. */
-const decades = (x: number) => { const t = sig(x, 2); return `${t} ${t === "1" ? "decade" : "decades"}`; };
 
 /** The ranked windows; each row's button selects it (moves the marker on both charts). */
 export function WindowTable({ windows, selected, onSelect }: { windows: OperatingWindow[]; selected: number | null; onSelect: (rank: number) => void }) {
@@ -28,7 +26,7 @@ export function WindowTable({ windows, selected, onSelect }: { windows: Operatin
                     #{w.rank}{isSel ? " selected" : " select"}
                   </button>
                 </td>
-                <td>{formatFrequency(w.bandStart)} – {formatFrequency(w.bandStop)}<div className="hint">{decades(w.widthDecades)} wide</div></td>
+                <td>{formatFrequency(w.bandStart)} – {formatFrequency(w.bandStop)}<div className="hint">{formatDecades(w.widthDecades)} wide</div></td>
                 <td>{formatFrequency(w.operatingPoint.frequency)} at {formatConductivity(w.operatingPoint.conductivity)}<div className="hint">target by {w.targetDirection}</div>{w.region && w.region.rows > 1 && <div className="hint" data-testid="window-region">region {formatConductivity(w.region.conductivityMin)} – {formatConductivity(w.region.conductivityMax)} ({w.region.rows} rows)</div>}</td>
                 <td>{sig(w.voltage.vpp, 3)} Vpp ({sig(w.voltage.rms, 3)} Vrms)<div className="hint">{w.voltage.limitedBy === "speed" ? "set by the target speed" : `limited by ${w.voltage.limitedBy}`}</div></td>
                 <td>{pct(w.recovery)}</td>

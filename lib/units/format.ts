@@ -202,6 +202,17 @@ function tenToThe(value: number, unit: string, digits: number): string {
 }
 
 /**
+ * A width or shift in decades of frequency (2 significant digits); the noun is singular only when the shown number is 1.
+ * @example formatDecades(1) // "1 decade"
+ * @example formatDecades(0.4213) // "0.42 decades"
+ */
+export function formatDecades(decades: number, digits = 2): string {
+  if (!Number.isFinite(decades)) return NO_VALUE;
+  const t = sig(decades, digits);
+  return `${t} ${t === "1" ? "decade" : "decades"}`;
+}
+
+/**
  * Minutes.
  * @example formatMinutes(30) // "30 min"
  */

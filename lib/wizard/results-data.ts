@@ -1,5 +1,7 @@
 import { BLOCKER_LABELS, type Blocker, type OperatingWindow, type PlannerWarning, type SensitivityResult, type WindowsResult } from "@/lib/planner";
 import type { ProtocolWarning } from "@/lib/protocols/content";
+import { sig } from "@/lib/units/number";
+import { formatConductivity, formatFrequency } from "@/lib/units/format";
 
 /**
  * Signed separation for the heat map: recovery × purity at each point, positive where the target's mean cell has
@@ -111,4 +113,53 @@ export function behaviourText(w: OperatingWindow, populationId: string): string 
 export function directionIndex(w: OperatingWindow, populationId: string): number {
   const f = w.fractions.find((x) => x.populationId === populationId);
   return f ? f.positive - f.negative : 0;
+}
+
+/** A window as the draft remembers it: its conductivity (S/m) and band edges (Hz). */
+export interface SavedWindow {
+  conductivity: number;
+  bandStart: number;
+  bandStop: number;
+}
+
+/**
+ * The rank of the selected window. A selection belongs to the result it was made on: after a recompute (a new result
+ * object) it is dropped, and the draft's saved window is selected again only if the new result still has it (same
+ * conductivity and band); otherwise null, and the page shows window #1.
+ * @example selectedRank({ result: old, rank: 4 }, fresh, null) // null: the old #4 is not carried over
+ */
+export function selectedRank(choice: { result: WindowsResult | undefined; rank: number | null }, result: WindowsResult | undefined, saved: SavedWindow | null): number | null {
+  if (choice.result !== undefined && choice.result === result) return choice.rank;
+  if (!saved || !result) return null;
+  return result.windows.find((w) => w.conductivity === saved.conductivity && w.bandStart === saved.bandStart && w.bandStop === saved.bandStop)?.rank ?? null;
+}
+
+/** What the sweep map knows at one grid point, for its read-out. */
+export interface MapPoint {
+  frequency: number;
+  conductivity: number;
+  recovery: number;
+  purity: number;
+  /** Re[K] of the target's mean cell here, when the result carries it. */
+  reK?: number;
+  /** Signed separation (its sign is the side the target is sorted to); used only without Re[K]. */
+  separation: number;
+  feasible: boolean;
+  /** Names of the limits refusing the point ("" = none known). */
+  blockers?: string;
+}
+
+/**
+ * The map's hover read-out for one point. The DEP sign comes from the target's own Re[K] (positive above zero), so a
+ * point below the target's crossover reads "negative DEP" whatever the separation score; the limits refusing the
+ * point are named.
+ * @example mapReadout({ frequency: 3480, conductivity: 0.012, recovery: 0.5, purity: 0.6, reK: -0.31, separation: 0.2, feasible: false, blockers: "heating" })
+ *   // "3.48 kHz, 12 mS/m (120 µS/cm): recovery 50 %, purity 60 %, target's mean cell Re[K] -0.31 (negative DEP); refused by: heating."
+ */
+export function mapReadout(p: MapPoint): string {
+  const dep = p.reK !== undefined
+    ? `target's mean cell Re[K] ${sig(p.reK, 2)} (${p.reK >= 0 ? "positive" : "negative"} DEP)`
+    : `target moves by ${p.separation >= 0 ? "positive" : "negative"} DEP`;
+  const limits = p.feasible ? "meets every limit" : p.blockers ? `refused by: ${p.blockers}` : "fails a limit or the separation threshold";
+  return `${formatFrequency(p.frequency)}, ${formatConductivity(p.conductivity, { meter: true })}: recovery ${sig(p.recovery * 100, 3)} %, purity ${sig(p.purity * 100, 3)} %, ${dep}; ${limits}.`;
 }

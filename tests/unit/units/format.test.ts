@@ -2,11 +2,18 @@ import { describe, expect, it } from "vitest";
 import {
   formatCapacitance, formatCellDensity, formatConductivity, formatFlow, formatFrequency, formatGrams, formatLength, formatMeterConductivity,
   formatMillilitres, formatOsmolality, formatPercent, formatPercentFixed, formatPerCubicMetre, formatQuantity, formatSI, formatTemperature,
-  formatTemperatureRise, formatVelocity, formatVpp, formatVrms, frequencyUnitFor,
+  formatTemperatureRise, formatVelocity, formatVpp, formatVrms, frequencyUnitFor, formatDecades,
 } from "@/lib/units/format";
 import { toSI } from "@/lib/units/lab";
 
 describe("one convention per quantity kind", () => {
+  it("decades: singular only when the number shown is 1 (not '1 decades')", () => {
+    expect(formatDecades(1)).toBe("1 decade");
+    expect(formatDecades(0.996)).toBe("1 decade"); // shown as 1 at 2 digits
+    expect(formatDecades(0.4213)).toBe("0.42 decades");
+    expect(formatDecades(2)).toBe("2 decades");
+  });
+
   it("frequencyUnitFor names the unit formatFrequency prints in, so a blank beside a printed value asks for the same unit", () => {
     for (const hz of [50, 999, 250e3, 999999, 1.5e6, 9085180, 4.2e8]) {
       expect(formatFrequency(hz, 4).endsWith(` ${frequencyUnitFor(hz, 4)}`)).toBe(true);
