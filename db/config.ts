@@ -1,5 +1,6 @@
 import path from "node:path";
 import type { Knex } from "knex";
+import { readEnv } from "../lib/env";
 import { migrationSource } from "./migrations/index";
 
 /**
@@ -11,30 +12,32 @@ import { migrationSource } from "./migrations/index";
 export type DbAccount = "app" | "migrator";
 
 /**
- * User name and password of one account, from the environment.
+ * User name and password of one account, from the settings parsed by lib/env.ts (`source` lets a test inject).
  * @example dbCredentials("migrator") // { user: "sievewright_migrator", password: "…" }
  */
-export function dbCredentials(account: DbAccount, env: NodeJS.ProcessEnv = process.env): { user: string; password: string } {
+export function dbCredentials(account: DbAccount, source?: Record<string, string | undefined>): { user: string; password: string } {
+  const env = readEnv(source);
   if (account === "migrator" && env.DB_MIGRATOR_USER) return { user: env.DB_MIGRATOR_USER, password: env.DB_MIGRATOR_PASSWORD ?? "" };
-  return { user: env.DB_USER ?? "sievewright", password: env.DB_PASSWORD ?? "sievewright-local" };
+  return { user: env.DB_USER, password: env.DB_PASSWORD };
 }
 
 /**
- * Knex configuration from the environment (DB_HOST, DB_PORT, DB_NAME and the chosen account's credentials).
+ * Knex configuration from lib/env.ts's settings (DB_HOST, DB_PORT, DB_NAME and the chosen account's credentials).
  * @example const db = knex(dbConfig());                       // the app account
  * @example const admin = knex(dbConfig({ account: "migrator" })); // schema changes
  */
 export function dbConfig(overrides: { database?: string; account?: DbAccount } = {}): Knex.Config {
   const root = process.cwd();
   const { user, password } = dbCredentials(overrides.account ?? "app");
+  const env = readEnv();
   return {
     client: "mysql2",
     connection: {
-      host: process.env.DB_HOST ?? "127.0.0.1",
-      port: Number(process.env.DB_PORT ?? 3307),
+      host: env.DB_HOST,
+      port: env.DB_PORT,
       user,
       password,
-      database: overrides.database ?? process.env.DB_NAME ?? "sievewright",
+      database: overrides.database ?? env.DB_NAME,
       charset: "utf8mb4",
       timezone: "Z",
       dateStrings: false,

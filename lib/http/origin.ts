@@ -1,4 +1,5 @@
 import { CrossSiteError, UnsupportedMediaTypeError } from "@/lib/errors";
+import { configuredUrls } from "@/lib/env";
 import type { Env } from "@/lib/http/security-headers";
 
 /** Methods that change state; only these are checked for cross-site origin and content type. */
@@ -9,16 +10,10 @@ const UNSAFE_METHODS = new Set(["POST", "PUT", "PATCH", "DELETE"]);
  * neither is set (a bare `next dev` without .env).
  * @example appOrigins("http://127.0.0.1:3000/api/v1/runs") // ["http://127.0.0.1:3000"]
  */
-export function appOrigins(requestUrl: string, env: Env = process.env): string[] {
+export function appOrigins(requestUrl: string, env?: Env): string[] {
   const origins = new Set<string>();
-  for (const value of [env.APP_BASE_URL, env.NEXTAUTH_URL]) {
-    if (!value) continue;
-    try {
-      origins.add(new URL(value).origin);
-    } catch {
-      // an unparsable setting adds nothing; the request's own origin is still required below
-    }
-  }
+  const urls = configuredUrls(env);
+  for (const value of [urls.APP_BASE_URL, urls.NEXTAUTH_URL]) if (value) origins.add(new URL(value).origin);
   if (origins.size === 0) origins.add(new URL(requestUrl).origin);
   return [...origins];
 }
@@ -29,7 +24,7 @@ export function appOrigins(requestUrl: string, env: Env = process.env): string[]
  * Throws CrossSiteError (403). Safe methods (GET, HEAD, OPTIONS) pass.
  * @example assertSameOrigin(new Request(url, { method: "POST", headers: { origin: "http://127.0.0.1:3000" } }));
  */
-export function assertSameOrigin(req: Request, env: Env = process.env): void {
+export function assertSameOrigin(req: Request, env?: Env): void {
   if (!UNSAFE_METHODS.has(req.method.toUpperCase())) return;
   const origin = req.headers.get("origin");
   const allowed = appOrigins(req.url, env);

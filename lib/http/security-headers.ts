@@ -1,4 +1,6 @@
-/** Environment variables as read here (process.env, or a plain object in tests). */
+import { configuredUrls } from "@/lib/env";
+
+/** Environment variables a test injects in place of process.env (lib/env.ts parses them). */
 export type Env = Record<string, string | undefined>;
 
 /** Settings that shape the security headers of one response. */
@@ -82,8 +84,9 @@ export function securityHeaders(ctx: HeaderContext): Record<string, string> {
  * Whether the app's public base URL is https (then session cookies are `Secure` and HSTS is sent).
  * @example servedOverHttps({ APP_BASE_URL: "https://sw.lab.example" }) // true
  */
-export function servedOverHttps(env: Env = process.env): boolean {
-  const base = env.NEXTAUTH_URL || env.APP_BASE_URL || "";
+export function servedOverHttps(env?: Env): boolean {
+  const urls = configuredUrls(env);
+  const base = urls.NEXTAUTH_URL || urls.APP_BASE_URL || "";
   return base.toLowerCase().startsWith("https://");
 }
 

@@ -46,3 +46,29 @@ describe("readEnv — every variable parsed once with its rule", () => {
     expect(() => readEnv({ SMTP_PORT: "x", OUTBOX_MAX_ATTEMPTS: "0" })).toThrow(/SMTP_PORT: .*; OUTBOX_MAX_ATTEMPTS: /);
   });
 });
+
+describe("modules that read their settings through lib/env.ts", () => {
+  it("object store: unset S3_ENDPOINT is the local fake, an empty one the provider's default; keys keep an empty value", async () => {
+    const { storageConfig } = await import("@/lib/storage/config");
+    expect(storageConfig({})).toMatchObject({ endpoint: "http://127.0.0.1:4500", region: "us-east-1", bucket: "sievewright", accessKeyId: "S3RVER", forcePathStyle: true });
+    expect(storageConfig({ S3_ENDPOINT: "", S3_SECRET_ACCESS_KEY: "" })).toMatchObject({ endpoint: undefined, secretAccessKey: "" });
+    expect(storageConfig({ S3_ENDPOINT: " https://s3.example ", S3_FORCE_PATH_STYLE: "no" })).toMatchObject({ endpoint: "https://s3.example", forcePathStyle: false });
+    expect(() => storageConfig({ S3_BUCKET: "Bad_Bucket" })).toThrow(/S3_BUCKET/);
+  });
+
+  it("database: the migrator account falls back to the app account; an empty password stays empty; a bad port is named", async () => {
+    const { dbConfig, dbCredentials } = await import("@/db/config");
+    expect(dbCredentials("migrator", { DB_USER: "app", DB_PASSWORD: "" })).toEqual({ user: "app", password: "" });
+    expect(dbCredentials("migrator", { DB_MIGRATOR_USER: "owner", DB_MIGRATOR_PASSWORD: "pw" })).toEqual({ user: "owner", password: "pw" });
+    expect(dbCredentials("app", {})).toEqual({ user: "sievewright", password: "sievewright-local" });
+    expect(() => dbCredentials("app", { DB_PORT: "99999" })).toThrow(/DB_PORT/);
+    expect(dbConfig().connection).toMatchObject({ host: readEnv().DB_HOST, port: readEnv().DB_PORT, database: readEnv().DB_NAME });
+  });
+
+  it("auth settings come from the same table", async () => {
+    const { authConfig } = await import("@/lib/auth/config");
+    expect(authConfig({}).AUTH_LOCK_MINUTES).toBe(15);
+    expect(authConfig({ AUTH_LOCK_MINUTES: "20" }).AUTH_LOCK_MINUTES).toBe(20);
+    expect(() => authConfig({ AUTH_LOCK_MINUTES: "0" })).toThrow(/AUTH_LOCK_MINUTES/);
+  });
+});
