@@ -1,22 +1,6 @@
 "use client";
 
-import type { ReactNode } from "react";
 import { useHydrated } from "@/components/forms/use-hydrated";
-
-/** A labelled input with its unit, hint and error in words. */
-export function NumberField({ label, unit, hint, error, children }: { label: string; unit?: string; hint?: ReactNode; error?: string; children: ReactNode }) {
-  return (
-    <label className="field">
-      <span>{label}</span>
-      <div className="flex items-center gap-2">
-        {children}
-        {unit && <span className="min-w-12 text-sm text-ink-muted">{unit}</span>}
-      </div>
-      {hint && <p className="hint">{hint}</p>}
-      {error && <p className="field-error">{error}</p>}
-    </label>
-  );
-}
 
 /** The submit row with a status line. */
 export function SubmitRow({ label, busy, status, hasErrors }: { label: string; busy: boolean; status: { ok: boolean; text: string } | null; hasErrors: boolean }) {

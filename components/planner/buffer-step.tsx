@@ -3,12 +3,11 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useFieldArray, useForm, useWatch } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
+import { BenchFields, BufferNumber, MeterReadingFields, RecipeFields, RecipePrediction } from "@/components/buffers/buffer-editor";
 import { formatConductivity } from "@/lib/units/format";
-import { sig } from "@/lib/units/number";
-import { ADDITION_KINDS, additionUnitLabel, BUFFER_STEP_FIELDS, bufferChoice, bufferStepSchema, libraryBufferToStep, predictRecipe, type BufferStepValues, type LibraryBufferContent } from "@/lib/wizard/buffer-form";
-import { labelWithUnit, rangeInWords } from "@/lib/units/lab-fields";
-import { errorAt, NumField } from "@/components/forms/num-field";
+import { bufferChoice, bufferStepSchema, libraryBufferToStep, predictRecipe, type BufferStepValues, type LibraryBufferContent } from "@/lib/wizard/buffer-form";
+import { errorAt } from "@/components/forms/num-field";
 import { StepFooter } from "./step-footer";
 import { useAutosave } from "./use-autosave";
 
@@ -18,20 +17,16 @@ const MODES = [
   { value: "range", label: "Search a conductivity range", hint: "Let the planner find the best conductivity; make the buffer afterwards." },
 ] as const;
 
-/** Step 2: the suspending buffer — recipe with computed properties, a measured conductivity, or a range to search. */
+/** Step 2: the suspending buffer — recipe with computed properties, a measured conductivity, or a range to search (the shared buffer editor). */
 export function BufferStep({ draftId, initial, library }: { draftId: number; initial: BufferStepValues; library: { id: number; version: number; name: string; content: LibraryBufferContent }[] }) {
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
   const { register, control, handleSubmit, reset, formState: { errors, isSubmitting } } = useForm<BufferStepValues>({ resolver: zodResolver(bufferStepSchema) as never, defaultValues: initial, mode: "onChange" });
-  const additions = useFieldArray({ control, name: "additions" });
   const values = useWatch({ control }) as BufferStepValues;
   const { state, saveNow } = useAutosave(draftId, "buffer", values);
   const prediction = values.mode === "recipe" ? predictRecipe(values) : null;
   const valid = bufferStepSchema.safeParse(values).success;
   const choice = valid ? bufferChoice(values) : null;
-  const num = (key: Exclude<keyof typeof BUFFER_STEP_FIELDS, "perLitre">, extra?: string, id = `buffer-${key}`) => (
-    <NumField id={id} label={labelWithUnit(BUFFER_STEP_FIELDS[key])} registration={register(key, { valueAsNumber: true })} error={errorAt(errors, key)} hint={`${rangeInWords(BUFFER_STEP_FIELDS[key])}${extra ? `. ${extra}` : ""}`} step={BUFFER_STEP_FIELDS[key].unit === "minute" ? 1 : "any"} />
-  );
 
   async function onValid() {
     setFormError(null);
@@ -73,70 +68,25 @@ export function BufferStep({ draftId, initial, library }: { draftId: number; ini
           </fieldset>
 
           {values.mode === "recipe" && (
-            <fieldset className="space-y-3 rounded-md border border-paper-line p-3">
-              <legend className="px-1 text-sm font-semibold">Recipe</legend>
-              <div className="grid gap-3 sm:grid-cols-2">
-                {num("volumeMl")}
-                {num("temperatureC", "The prediction is also given at this temperature, for checking with a meter")}
-                {num("sucrosePercentWV", BUFFER_STEP_FIELDS.sucrosePercentWV.help, "buffer-sucrose")}
-                {num("glucosePercentWV", undefined, "buffer-glucose")}
-              </div>
-              <div>
-                <p className="mb-1 text-sm font-medium text-ink-soft">Salt and stock additions, per litre of sugar base</p>
-                <ul className="space-y-2">
-                  {additions.fields.map((f, i) => (
-                    <li key={f.id} className="grid items-start gap-2 sm:grid-cols-[3fr_2fr_auto]">
-                      <div className="field">
-                        <label htmlFor={`buffer-add-${i}-kind`} className="sr-only">Addition {i + 1}</label>
-                        <select id={`buffer-add-${i}-kind`} className="input" {...register(`additions.${i}.kind`)}>
-                          {ADDITION_KINDS.map((k) => <option key={k} value={k}>{additionUnitLabel(k)}</option>)}
-                        </select>
-                      </div>
-                      <NumField id={`buffer-add-${i}-amount`} label={`Amount (${values.additions[i] && values.additions[i].kind in { KCl: 1, NaCl: 1 } ? "g" : "mL"} per litre)`} registration={register(`additions.${i}.perLitre`, { valueAsNumber: true })} error={errorAt(errors, `additions.${i}.perLitre`)} />
-                      <button type="button" className="btn-quiet mt-6" onClick={() => additions.remove(i)} aria-label={`Remove addition ${i + 1}`}>Remove</button>
-                    </li>
-                  ))}
-                </ul>
-                <button type="button" className="btn-quiet mt-2" onClick={() => additions.append({ kind: "PBS1x", perLitre: 1 })}>Add a salt or stock</button>
-                {errorAt(errors, "additions") && <p className="field-error">{errorAt(errors, "additions")}</p>}
-              </div>
-            </fieldset>
+            <RecipeFields register={register} errors={errors} control={control} values={values} batch={<>
+              <BufferNumber name="volumeMl" register={register} errors={errors} />
+              <BufferNumber name="temperatureC" register={register} errors={errors} hint="The prediction is also given at this temperature, for checking with a meter" />
+            </>} />
           )}
-          {values.mode === "measured" && (
-            <fieldset className="grid gap-3 rounded-md border border-paper-line p-3 sm:grid-cols-2">
-              <legend className="px-1 text-sm font-semibold">Meter reading</legend>
-              {num("measuredConductivity", "1 mS/m = 10 µS/cm")}
-              {num("measuredAtC", "Converted to 25 °C with 2 %/K")}
-            </fieldset>
-          )}
+          {values.mode === "measured" && <MeterReadingFields register={register} errors={errors} />}
           {values.mode === "range" && (
             <fieldset className="grid gap-3 rounded-md border border-paper-line p-3 sm:grid-cols-2">
               <legend className="px-1 text-sm font-semibold">Range to search (log-spaced, 31 steps)</legend>
-              {num("rangeLow")}
-              {num("rangeHigh")}
+              <BufferNumber name="rangeLow" register={register} errors={errors} />
+              <BufferNumber name="rangeHigh" register={register} errors={errors} />
             </fieldset>
           )}
-          <fieldset className="grid gap-3 rounded-md border border-paper-line p-3 sm:grid-cols-3">
-            <legend className="px-1 text-sm font-semibold">At the bench</legend>
-            {num("osmolality", "Optional; leave empty if not measured")}
-            {num("tolerancePercent", undefined, "buffer-tolerance")}
-            {num("maxMinutesInBuffer", BUFFER_STEP_FIELDS.maxMinutesInBuffer.help, "buffer-minutes")}
-          </fieldset>
+          <BenchFields register={register} errors={errors} />
         </div>
 
         <aside className="card space-y-3" aria-labelledby="buffer-summary" data-testid="buffer-summary">
           <h2 id="buffer-summary">What the planner will use</h2>
-          {values.mode === "recipe" && prediction?.result && (
-            <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
-              <dt className="text-ink-muted">Conductivity at 25 °C</dt><dd data-testid="recipe-conductivity">{formatConductivity(prediction.result.conductivity25, { meter: true })}</dd>
-              <dt className="text-ink-muted">At {values.temperatureC} °C</dt><dd>{formatConductivity(prediction.result.conductivity, { meter: true })}</dd>
-              <dt className="text-ink-muted">Osmolality</dt><dd data-testid="recipe-osmolality">{Math.round(prediction.result.osmolality * 1000)} mOsm/kg</dd>
-              <dt className="text-ink-muted">Viscosity</dt><dd>{sig(prediction.result.relativeViscosity, 3)} × water</dd>
-              <dt className="text-ink-muted">Final volume</dt><dd>{sig(prediction.result.finalVolumeL * 1000, 4)} mL</dd>
-            </dl>
-          )}
-          {values.mode === "recipe" && prediction?.result?.warnings.map((w) => <p key={w.code} className="notice">{w.message}</p>)}
-          {values.mode === "recipe" && prediction?.error && <p className="field-error">{prediction.error}</p>}
+          {values.mode === "recipe" && prediction && <RecipePrediction result={prediction.result} error={prediction.error} temperatureC={values.temperatureC} finalVolume />}
           {values.mode !== "recipe" && choice && (
             <p className="text-sm">{choice.conductivity25 !== null ? `Medium conductivity ${formatConductivity(choice.conductivity25, { meter: true })} at 25 °C.` : `Search from ${formatConductivity(choice.range25!.low)} to ${formatConductivity(choice.range25!.high)} at 25 °C.`}</p>
           )}

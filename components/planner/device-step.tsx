@@ -4,36 +4,28 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { interdigitatedField } from "@/lib/dielectric";
-import { sig } from "@/lib/units/number";
+import { DeviceEditor } from "@/components/devices/device-editor";
 import { DEVICE_FIELDS } from "@/lib/devices/fields";
+import { formatVelocity } from "@/lib/units/format";
 import { deviceStepSchema, libraryDeviceToStep, meanFlowSpeed, STEP_FIELD_OF, type DeviceStepValues, type LibraryDeviceContent } from "@/lib/wizard/device-form";
-import { labelWithUnit, rangeInWords } from "@/lib/units/lab-fields";
+import { labelWithUnit, rangeInWords, readNumber } from "@/lib/units/lab-fields";
 import { errorAt, NumField } from "@/components/forms/num-field";
 import { StepFooter } from "./step-footer";
 import { useAutosave } from "./use-autosave";
 
 type Key = keyof typeof STEP_FIELD_OF;
-const field = (key: Key) => DEVICE_FIELDS[STEP_FIELD_OF[key]];
 
-/** Step 3: electrodes (preset or own Γ), generator limit, what the drive is sized for, operating temperature. */
+/** Step 3: the shared device editor (electrodes or own Γ, generator), then what the drive is sized for and the operating temperature. */
 export function DeviceStep({ draftId, initial, library }: { draftId: number; initial: DeviceStepValues; library: { id: number; version: number; name: string; content: LibraryDeviceContent }[] }) {
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
   const { register, control, handleSubmit, reset, getValues, formState: { errors, isSubmitting } } = useForm<DeviceStepValues>({ resolver: zodResolver(deviceStepSchema) as never, defaultValues: initial, mode: "onChange" });
   const values = useWatch({ control }) as DeviceStepValues;
   const { state, saveNow } = useAutosave(draftId, "device", values);
-  const num = (key: Key, optional = false) => {
-    const f = field(key);
-    return <NumField id={`device-${key}`} label={`${labelWithUnit(f)}${optional ? ", optional" : ""}`} registration={register(key, { valueAsNumber: true })} error={errorAt(errors, key)} hint={`${rangeInWords(f)}. ${f.help}`} />;
+  const num = (key: Key) => {
+    const f = DEVICE_FIELDS[STEP_FIELD_OF[key]];
+    return <NumField id={`device-${key}`} label={labelWithUnit(f)} registration={register(key, { setValueAs: readNumber })} error={errorAt(errors, key)} hint={`${rangeInWords(f)}. ${f.help}`} />;
   };
-  let gammaText = "—";
-  try {
-    if (values.geometry === "interdigitated") gammaText = `${sig(interdigitatedField(values.electrodeWidth * 1e-6, values.electrodeGap * 1e-6, values.evalHeight * 1e-6).gamma, 3)} m⁻³ (interdigitated preset, fundamental mode)`;
-    else if (Number.isFinite(values.gamma)) gammaText = `${sig(values.gamma, 3)} m⁻³ (your value)`;
-  } catch {
-    gammaText = "— (check the dimensions)";
-  }
   const flow = values.drive === "flow" && [values.flowRate, values.channelWidth, values.channelHeight].every(Number.isFinite) ? meanFlowSpeed(values.flowRate, values.channelWidth, values.channelHeight) : null;
 
   async function onValid() {
@@ -63,28 +55,10 @@ export function DeviceStep({ draftId, initial, library }: { draftId: number; ini
           </div>
         </div>
 
-        <fieldset className="space-y-3 rounded-md border border-paper-line p-3">
-          <legend className="px-1 text-sm font-semibold">Electrodes and field gradient</legend>
-          <div className="flex flex-wrap gap-4 text-sm">
-            <label className="flex items-center gap-2"><input type="radio" value="interdigitated" {...register("geometry")} /> Interdigitated electrodes (preset)</label>
-            <label className="flex items-center gap-2"><input type="radio" value="user" {...register("geometry")} /> My own field-gradient factor Γ</label>
-          </div>
-          <div className="grid gap-3 sm:grid-cols-3">
-            {values.geometry === "interdigitated" ? <>{num("electrodeWidth")}{num("electrodeGap")}{num("evalHeight")}</> : <>{num("gamma")}{num("electrodeGap")}
-              <div className="field">
-                <label htmlFor="device-gammaSource" className="mb-1 block font-medium text-ink-soft">Where Γ comes from</label>
-                <input id="device-gammaSource" className="input" {...register("gammaSource")} aria-invalid={errorAt(errors, "gammaSource") ? true : undefined} placeholder="e.g. FEM model of chip rev. C, 2026-11" />
-                {errorAt(errors, "gammaSource") && <p className="field-error">{errorAt(errors, "gammaSource")}</p>}
-              </div></>}
-            {num("channelHeight")}
-          </div>
-          <p className="text-sm" data-testid="gamma-readout">Γ used: <strong>{gammaText}</strong>. ∇|E_rms|² = Γ·V_rms²; the field in the gap is taken as V / gap.</p>
-        </fieldset>
+        <DeviceEditor values={values} register={register} errors={errors} withEvalHeight frequencyOptional generatorExtra={num("operatingTemperatureC")} />
 
         <fieldset className="space-y-3 rounded-md border border-paper-line p-3">
-          <legend className="px-1 text-sm font-semibold">Generator and drive</legend>
-          <div className="grid gap-3 sm:grid-cols-3">{num("maxVoltageVpp")}{num("operatingTemperatureC")}</div>
-          <div className="grid gap-3 sm:grid-cols-3">{num("minFrequency", true)}{num("maxFrequency", true)}</div>
+          <legend className="px-1 text-sm font-semibold">Drive</legend>
           <div className="flex flex-wrap gap-4 text-sm">
             <label className="flex items-center gap-2"><input type="radio" value="speed" {...register("drive")} /> Size the voltage for a DEP speed</label>
             <label className="flex items-center gap-2"><input type="radio" value="flow" {...register("drive")} /> Size it for a flow rate through the channel</label>
@@ -92,7 +66,7 @@ export function DeviceStep({ draftId, initial, library }: { draftId: number; ini
           <div className="grid gap-3 sm:grid-cols-3">
             {values.drive === "speed" ? num("targetSpeed") : <>{num("flowRate")}{num("channelWidth")}{num("arrayLength")}</>}
           </div>
-          {flow !== null && <p className="text-sm">Mean flow speed {sig(flow * 1e6, 3)} µm/s; the cells must be moved across the channel while they pass the array.</p>}
+          {flow !== null && <p className="text-sm">Mean flow speed {formatVelocity(flow)}; the cells must be moved across the channel while they pass the array.</p>}
         </fieldset>
       </div>
       <StepFooter backHref={`/planner/${draftId}/buffer`} nextLabel="Next: limits" state={state} busy={isSubmitting} formError={formError} />

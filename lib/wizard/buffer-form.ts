@@ -1,50 +1,21 @@
 import { z } from "zod";
-import { conductivityAt25, evaluateBuffer, SALTS, STOCKS, type BufferAddition, type BufferResult, type SaltKind, type StockKind } from "@/lib/dielectric";
-import { BUFFER_FIELDS as F, MAX_ADDITIONS } from "@/lib/buffers/fields";
-import { recipeFieldIssues, type RecipeFieldIssue } from "@/lib/buffers/recipe-errors";
+import { conductivityAt25, type BufferResult } from "@/lib/dielectric";
+import { MAX_ADDITIONS } from "@/lib/buffers/fields";
+import { BUFFER_FORM_FIELDS } from "@/lib/buffers/form";
+import { ADDITION_KINDS, predictRecipe as predictBatch, toEngineRecipe as engineRecipe, type AdditionKind, type RecipeBatch } from "@/lib/buffers/recipe";
+import type { RecipeFieldIssue } from "@/lib/buffers/recipe-errors";
 import { conductivityRangeIssue } from "@/lib/buffers/schema";
 import { fromSI, toSI } from "@/lib/units/lab";
 import { tidy } from "@/lib/units/number";
-import { labSchema, type QuantityField } from "@/lib/units/quantity-field";
+import { labSchema } from "@/lib/units/quantity-field";
 
 /** How the medium conductivity is given. */
 export const BUFFER_MODES = ["recipe", "measured", "range"] as const;
 export type BufferMode = (typeof BUFFER_MODES)[number];
 
-/** Salts and stocks that can go into the sugar base. */
-export const ADDITION_KINDS = [...Object.keys(SALTS), ...Object.keys(STOCKS)] as [SaltKind | StockKind, ...(SaltKind | StockKind)[]];
-export type AdditionKind = (typeof ADDITION_KINDS)[number];
-
-/** Whether an addition is a weighed salt (g per litre) rather than a pipetted stock (mL per litre). */
-export function isSaltKind(kind: AdditionKind): kind is SaltKind {
-  return kind in SALTS;
-}
-
-/**
- * Human label of an addition with its amount unit.
- * @example additionUnitLabel("PBS1x") // "phosphate-buffered saline, 1× — mL per litre"
- */
-export function additionUnitLabel(kind: AdditionKind): string {
-  return isSaltKind(kind) ? `${SALTS[kind].label} — g per litre` : `${STOCKS[kind as StockKind].label} — mL per litre`;
-}
-
-/** Buffer step fields: rows of the buffer field table (lib/buffers/fields.ts) with the step's own labels. */
-export const BUFFER_STEP_FIELDS = {
-  volumeMl: F.volume,
-  sucrosePercentWV: F.sucrosePercentWV,
-  glucosePercentWV: F.glucosePercentWV,
-  perLitre: F.amountPerLitre,
-  temperatureC: { ...F.temperatureC, label: "Temperature the buffer is made up and measured at" },
-  measuredConductivity: { ...F.conductivity, label: "Measured conductivity" },
-  measuredAtC: { ...F.temperatureC, label: "Temperature of the reading" },
-  rangeLow: { ...F.conductivity, label: "Lowest conductivity to search, at 25 °C" },
-  rangeHigh: { ...F.conductivity, label: "Highest conductivity to search, at 25 °C" },
-  osmolality: F.osmolality,
-  tolerancePercent: { ...F.tolerance, label: "Accepted conductivity deviation at the bench" },
-  maxMinutesInBuffer: F.maxMinutesInBuffer,
-} as const satisfies Record<string, QuantityField>;
-type StepField = keyof typeof BUFFER_STEP_FIELDS;
-const lab = (key: StepField) => tidy(fromSI(BUFFER_STEP_FIELDS[key].unit, BUFFER_STEP_FIELDS[key].default), 8);
+/** Buffer step fields: the shared buffer form rows (lib/buffers/form.ts) the step uses. */
+type StepField = Exclude<keyof typeof BUFFER_FORM_FIELDS, "targetConductivity">;
+const lab = (key: StepField) => tidy(fromSI(BUFFER_FORM_FIELDS[key].unit, BUFFER_FORM_FIELDS[key].default), 8);
 
 /** The buffer step as typed (lab units: mL, % w/v, mS/m, °C, mOsm/kg). */
 export interface BufferStepValues {
@@ -95,30 +66,24 @@ const check = (ctx: z.RefinementCtx, path: string, schema: z.ZodType, value: unk
   return r.success;
 };
 
+/** The batch the step makes up: its volume (mL → L) at its temperature. */
+const batchOf = (v: BufferStepValues): RecipeBatch => ({ volumeL: tidy(toSI("mL", v.volumeMl) * 1000, 12), temperatureC: v.temperatureC });
+
 /**
- * The engine's recipe for a batch: base volume in L, additions scaled from per-litre amounts (g or mL) to the batch.
+ * The engine's recipe for the step's batch (lib/buffers/recipe.ts): additions scaled from per-litre amounts to it.
  * @example toEngineRecipe(defaultBuffer()).additions // [{ kind: "PBS1x", volumeL: 0.0005 }]
  */
 export function toEngineRecipe(v: BufferStepValues) {
-  const volumeL = tidy(toSI("mL", v.volumeMl) * 1000, 12);
-  const additions: BufferAddition[] = v.additions.map((a) =>
-    isSaltKind(a.kind) ? { kind: a.kind, grams: tidy(a.perLitre * volumeL, 12) } : { kind: a.kind as StockKind, volumeL: tidy(toSI("mL", a.perLitre) * 1000 * volumeL, 12) },
-  );
-  return { volumeL, temperatureC: v.temperatureC, sucrosePercentWV: v.sucrosePercentWV, glucosePercentWV: v.glucosePercentWV, additions };
+  return engineRecipe(v, batchOf(v));
 }
 
 /**
- * Runs the engine's recipe calculator; null when the recipe cannot be evaluated, with messages that name the step's
- * fields (lib/buffers/recipe-errors.ts) in `error` and, by field path, in `issues`.
+ * Runs the engine's recipe calculator on the step's batch; `result` null when the recipe cannot be evaluated, with
+ * messages that name the step's fields in `error` and, by field path, in `issues`.
  * @example predictRecipe(defaultBuffer()).result?.conductivity25 // ≈ 0.008 S/m
  */
 export function predictRecipe(v: BufferStepValues): { result: BufferResult | null; error: string | null; issues: RecipeFieldIssue[] } {
-  try {
-    return { result: evaluateBuffer(toEngineRecipe(v)), error: null, issues: [] };
-  } catch (err) {
-    const issues = recipeFieldIssues(err, v.additions.map((a) => a.kind), "perLitre", { volumeL: "volumeMl" });
-    return { result: null, error: issues.map((i) => i.message).join(" "), issues };
-  }
+  return predictBatch(v, batchOf(v), { volumeL: "volumeMl" });
 }
 
 /** What the buffer step yields for the planner, SI. */
@@ -169,7 +134,7 @@ export const bufferStepSchema = z
     maxMinutesInBuffer: loose,
   })
   .superRefine((v, ctx) => {
-    const num = (key: StepField, path: string = key, value: unknown = v[key as keyof typeof v]) => check(ctx, path, labSchema(BUFFER_STEP_FIELDS[key]), value);
+    const num = (key: StepField, path: string = key, value: unknown = v[key as keyof typeof v]) => check(ctx, path, labSchema(BUFFER_FORM_FIELDS[key]), value);
     num("tolerancePercent");
     num("maxMinutesInBuffer");
     if (v.osmolality !== undefined && v.osmolality !== null && !Number.isNaN(v.osmolality)) num("osmolality");
@@ -218,5 +183,3 @@ export function libraryBufferToStep(c: LibraryBufferContent, ref: { id: number; 
   return { ...common, mode: "measured", measuredConductivity: tidy(fromSI("mS_m", c.targetConductivity25), 8), measuredAtC: 25 };
 }
 
-/** Readable label of every salt and stock, as printed in a protocol's recipe. */
-export const SALT_AND_STOCK_LABELS = Object.fromEntries(ADDITION_KINDS.map((k) => [k, isSaltKind(k) ? SALTS[k].label : STOCKS[k as StockKind].label])) as Record<AdditionKind, string>;

@@ -1,12 +1,11 @@
 import { z } from "zod";
 import { DEVICE_FIELDS, type DeviceFieldKey } from "@/lib/devices/fields";
+import { DEVICE_FORM_FIELDS, GAMMA_SOURCE_LENGTH, GAMMA_SOURCE_MESSAGE, GEOMETRIES } from "@/lib/devices/form";
 import { frequencyRangeIssue } from "@/lib/devices/schema";
 import { fromSI, toSI } from "@/lib/units/lab";
 import { tidy } from "@/lib/units/number";
 import { labSchema } from "@/lib/units/quantity-field";
 
-/** Electrode geometry: the interdigitated preset, or a Γ from the user's own field simulation. */
-export const GEOMETRIES = ["interdigitated", "user"] as const;
 /** What the drive is sized for: a DEP speed, or a flow rate through the channel. */
 export const DRIVE_MODES = ["speed", "flow"] as const;
 
@@ -41,11 +40,10 @@ const lab = (key: StepField) => tidy(fromSI(DEVICE_FIELDS[key].unit, DEVICE_FIEL
 const si = (key: StepField, value: number) => tidy(toSI(DEVICE_FIELDS[key].unit, value), 12);
 const isEmpty = (v: unknown) => v === undefined || v === null || (typeof v === "number" && Number.isNaN(v));
 
-/** Where each step value sits in the field table (the step keeps its historical name `gamma`). */
+/** Where each step value sits in the field table: the device form's numbers (lib/devices/form.ts) plus the drive's. */
 export const STEP_FIELD_OF: Record<Exclude<keyof DeviceStepValues, "name" | "libraryRef" | "geometry" | "gammaSource" | "drive">, StepField> = {
-  electrodeWidth: "electrodeWidth", electrodeGap: "electrodeGap", evalHeight: "evalHeight", gamma: "gradientFactor", channelHeight: "channelHeight",
-  channelWidth: "channelWidth", arrayLength: "arrayLength", maxVoltageVpp: "maxVoltageVpp", minFrequency: "minFrequency", maxFrequency: "maxFrequency",
-  targetSpeed: "targetSpeed", flowRate: "flowRate", operatingTemperatureC: "operatingTemperatureC",
+  ...DEVICE_FORM_FIELDS,
+  channelWidth: "channelWidth", arrayLength: "arrayLength", targetSpeed: "targetSpeed", flowRate: "flowRate", operatingTemperatureC: "operatingTemperatureC",
 };
 
 /** A 20 µm interdigitated array in a 50 µm channel driven at up to 20 Vpp (the field table's defaults); no generator frequency range stated. */
@@ -100,7 +98,7 @@ export const deviceStepSchema = z
     ...(Object.fromEntries(Object.keys(STEP_FIELD_OF).map((k) => [k, loose])) as Record<keyof typeof STEP_FIELD_OF, typeof loose>),
     minFrequency: loose.optional(),
     maxFrequency: loose.optional(),
-    gammaSource: z.string().max(500, { error: "Source of Γ: at most 500 characters." }),
+    gammaSource: z.string().max(GAMMA_SOURCE_LENGTH.max, { error: GAMMA_SOURCE_MESSAGE }),
     drive: z.enum(DRIVE_MODES, { error: "Drive: size it for a DEP speed or a flow rate." }),
   })
   .superRefine((v, ctx) => {
@@ -126,7 +124,7 @@ export const deviceStepSchema = z
       }
     } else {
       check("gamma");
-      if (v.gammaSource.trim().length < 3) ctx.addIssue({ code: "custom", path: ["gammaSource"], message: "Source of Γ: say where the value comes from (simulation, file, date), at least 3 characters." });
+      if (v.gammaSource.trim().length < GAMMA_SOURCE_LENGTH.min) ctx.addIssue({ code: "custom", path: ["gammaSource"], message: GAMMA_SOURCE_MESSAGE });
     }
     if (v.drive === "speed") check("targetSpeed");
     else {

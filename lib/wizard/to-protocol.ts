@@ -3,8 +3,8 @@ import { particleFrom, type OperatingWindow, type WindowsRequest, type WindowsRe
 import { protocolContentSchema, type ProtocolContent } from "@/lib/protocols/content";
 import { parseOrThrow } from "@/lib/http/zod-issues";
 import { conductivityAt25 } from "@/lib/units/conductivity-temperature";
-import { isSaltKind, SALT_AND_STOCK_LABELS, type BufferStepValues } from "./buffer-form";
-import { bufferChoice } from "./buffer-form";
+import { ADDITION_NAMES, isSalt } from "@/lib/buffers/recipe";
+import { bufferChoice, type BufferStepValues } from "./buffer-form";
 import { stepFrequencyRange, stepSI, type DeviceStepValues } from "./device-form";
 import type { LimitsStepValues } from "./limits-form";
 import type { PopulationsStepOutput } from "./population-form";
@@ -64,7 +64,7 @@ export function buildContent(src: ContentSources): ProtocolContent {
           ? {
               sucrosePercentWV: buffer.sucrosePercentWV,
               glucosePercentWV: buffer.glucosePercentWV,
-              additions: buffer.additions.map((a) => ({ label: SALT_AND_STOCK_LABELS[a.kind], kind: isSaltKind(a.kind) ? "solid" : "stock", perLitre: a.perLitre })),
+              additions: buffer.additions.map((a) => ({ label: ADDITION_NAMES[a.kind], kind: isSalt(a.kind) ? "solid" : "stock", perLitre: a.perLitre })),
               conductivity25: choice.recipe.conductivity25,
               osmolality: choice.recipe.osmolality * 1000,
             }

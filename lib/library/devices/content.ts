@@ -3,6 +3,7 @@ import { interdigitatedField } from "@/lib/dielectric";
 import { formatIn, fromSI, toSI } from "@/lib/units/lab";
 import { tidy } from "@/lib/units/number";
 import { DEVICE_FIELDS as F } from "@/lib/devices/fields";
+import { GAMMA_SOURCE_LENGTH, GAMMA_SOURCE_MESSAGE, GEOMETRIES } from "@/lib/devices/form";
 import { frequencyRangeIssue } from "@/lib/devices/schema";
 import { outOfRangeMessage } from "@/lib/units/lab-fields";
 import { labSchema, siNumber } from "@/lib/units/quantity-field";
@@ -24,7 +25,7 @@ export const deviceContentSchema = z
     organisation: organisationSchema.default(""),
     geometry: z.discriminatedUnion("kind", [
       z.object({ kind: z.literal("interdigitated"), electrodeWidth: siNumber(F.electrodeWidth), electrodeGap: siNumber(F.electrodeGap), channelHeight: siNumber(F.channelHeight) }),
-      z.object({ kind: z.literal("user-gradient"), gradientFactor: siNumber(F.gradientFactor), gradientSource: z.string().trim().min(3).max(500), electrodeGap: siNumber(F.electrodeGap), channelHeight: siNumber(F.channelHeight) }),
+      z.object({ kind: z.literal("user-gradient"), gradientFactor: siNumber(F.gradientFactor), gradientSource: z.string().trim().min(GAMMA_SOURCE_LENGTH.min).max(GAMMA_SOURCE_LENGTH.max), electrodeGap: siNumber(F.electrodeGap), channelHeight: siNumber(F.channelHeight) }),
     ]),
     generator: z.object({ maxVoltageVpp: siNumber(F.maxVoltageVpp), minFrequency: siNumber(F.minFrequency), maxFrequency: siNumber(F.maxFrequency) }),
     notes: notesSchema.default(""),
@@ -35,46 +36,50 @@ export const deviceContentSchema = z
   });
 export type DeviceContent = z.infer<typeof deviceContentSchema>;
 
-/** The device form in lab units (µm, m⁻³, Vpp, kHz, MHz), for the browser and the server action. */
+/**
+ * The device form in lab units (µm, m⁻³, Vpp, kHz, MHz), for the browser and the server action. Its keys are those
+ * of DeviceFormValues (lib/devices/form.ts), which the planner's device step shares, so the one device editor
+ * serves both.
+ */
 export const deviceFormSchema = versionMetaFormSchema
   .extend({
     name: nameSchema,
     organisation: organisationSchema,
-    geometryKind: z.enum(GEOMETRY_KINDS, { error: "Geometry: choose the preset or your own Γ." }),
+    geometry: z.enum(GEOMETRIES, { error: "Geometry: choose the preset or your own Γ." }),
     electrodeWidth: labSchema(F.electrodeWidth).optional(),
     electrodeGap: labSchema(F.electrodeGap),
     channelHeight: labSchema(F.channelHeight),
-    gradientFactor: labSchema(F.gradientFactor).optional(),
-    gradientSource: z.string().trim().max(500, { error: "Source of Γ: at most 500 characters." }),
+    gamma: labSchema(F.gradientFactor).optional(),
+    gammaSource: z.string().trim().max(GAMMA_SOURCE_LENGTH.max, { error: GAMMA_SOURCE_MESSAGE }),
     maxVoltageVpp: labSchema(F.maxVoltageVpp),
-    minFrequencyKHz: labSchema(F.minFrequency),
-    maxFrequencyMHz: labSchema(F.maxFrequency),
+    minFrequency: labSchema(F.minFrequency),
+    maxFrequency: labSchema(F.maxFrequency),
     notes: notesSchema,
   })
   .superRefine((f, ctx) => {
-    if (f.geometryKind === "interdigitated" && f.electrodeWidth === undefined)
+    if (f.geometry === "interdigitated" && f.electrodeWidth === undefined)
       ctx.addIssue({ code: "custom", path: ["electrodeWidth"], message: outOfRangeMessage(F.electrodeWidth) });
-    if (f.geometryKind === "user-gradient" && f.gradientFactor === undefined)
-      ctx.addIssue({ code: "custom", path: ["gradientFactor"], message: outOfRangeMessage(F.gradientFactor) });
-    if (f.geometryKind === "user-gradient" && f.gradientSource.length < 3)
-      ctx.addIssue({ code: "custom", path: ["gradientSource"], message: "Source of Γ: say where the value comes from (e.g. your field simulation), 3 to 500 characters." });
-    const issue = frequencyRangeIssue({ minFrequency: toSI(F.minFrequency.unit, f.minFrequencyKHz), maxFrequency: toSI(F.maxFrequency.unit, f.maxFrequencyMHz) });
-    if (issue) ctx.addIssue({ code: "custom", path: ["maxFrequencyMHz"], message: `Highest generator frequency (MHz): ${issue}.` });
+    if (f.geometry === "user" && f.gamma === undefined)
+      ctx.addIssue({ code: "custom", path: ["gamma"], message: outOfRangeMessage(F.gradientFactor) });
+    if (f.geometry === "user" && f.gammaSource.length < GAMMA_SOURCE_LENGTH.min)
+      ctx.addIssue({ code: "custom", path: ["gammaSource"], message: GAMMA_SOURCE_MESSAGE });
+    const issue = frequencyRangeIssue({ minFrequency: toSI(F.minFrequency.unit, f.minFrequency), maxFrequency: toSI(F.maxFrequency.unit, f.maxFrequency) });
+    if (issue) ctx.addIssue({ code: "custom", path: ["maxFrequency"], message: `Highest generator frequency (MHz): ${issue}.` });
   });
 export type DeviceForm = z.input<typeof deviceFormSchema>;
 
 /** Converts a checked device form (lab units) to stored content (SI). */
 export function deviceFormToContent(f: z.output<typeof deviceFormSchema>): DeviceContent {
-  const m = (v: number) => tidy(toSI("um", v), 12);
+  const si = (key: "electrodeWidth" | "electrodeGap" | "channelHeight" | "gradientFactor" | "minFrequency" | "maxFrequency", v: number) => tidy(toSI(F[key].unit, v), 12);
   const geometry: DeviceContent["geometry"] =
-    f.geometryKind === "interdigitated"
-      ? { kind: "interdigitated", electrodeWidth: m(f.electrodeWidth!), electrodeGap: m(f.electrodeGap), channelHeight: m(f.channelHeight) }
-      : { kind: "user-gradient", gradientFactor: f.gradientFactor!, gradientSource: f.gradientSource, electrodeGap: m(f.electrodeGap), channelHeight: m(f.channelHeight) };
+    f.geometry === "interdigitated"
+      ? { kind: "interdigitated", electrodeWidth: si("electrodeWidth", f.electrodeWidth!), electrodeGap: si("electrodeGap", f.electrodeGap), channelHeight: si("channelHeight", f.channelHeight) }
+      : { kind: "user-gradient", gradientFactor: si("gradientFactor", f.gamma!), gradientSource: f.gammaSource, electrodeGap: si("electrodeGap", f.electrodeGap), channelHeight: si("channelHeight", f.channelHeight) };
   return {
     name: f.name,
     organisation: f.organisation,
     geometry,
-    generator: { maxVoltageVpp: f.maxVoltageVpp, minFrequency: tidy(toSI("kHz", f.minFrequencyKHz), 12), maxFrequency: tidy(toSI("MHz", f.maxFrequencyMHz), 12) },
+    generator: { maxVoltageVpp: f.maxVoltageVpp, minFrequency: si("minFrequency", f.minFrequency), maxFrequency: si("maxFrequency", f.maxFrequency) },
     notes: f.notes,
   };
 }
@@ -82,19 +87,19 @@ export function deviceFormToContent(f: z.output<typeof deviceFormSchema>): Devic
 /** Form values for a stored device (SI → lab units). */
 export function deviceContentToForm(c: DeviceContent): Omit<DeviceForm, "provenanceKind" | "provenanceSource" | "changeNote" | "mode"> {
   const g = c.geometry;
-  const um = (v: number) => tidy(fromSI("um", v));
+  const lab = (key: "electrodeWidth" | "electrodeGap" | "channelHeight" | "gradientFactor" | "minFrequency" | "maxFrequency", v: number) => tidy(fromSI(F[key].unit, v));
   return {
     name: c.name,
     organisation: c.organisation,
-    geometryKind: g.kind,
-    electrodeWidth: g.kind === "interdigitated" ? um(g.electrodeWidth) : undefined,
-    electrodeGap: um(g.electrodeGap),
-    channelHeight: um(g.channelHeight),
-    gradientFactor: g.kind === "user-gradient" ? g.gradientFactor : undefined,
-    gradientSource: g.kind === "user-gradient" ? g.gradientSource : "",
+    geometry: g.kind === "interdigitated" ? "interdigitated" : "user",
+    electrodeWidth: g.kind === "interdigitated" ? lab("electrodeWidth", g.electrodeWidth) : undefined,
+    electrodeGap: lab("electrodeGap", g.electrodeGap),
+    channelHeight: lab("channelHeight", g.channelHeight),
+    gamma: g.kind === "user-gradient" ? lab("gradientFactor", g.gradientFactor) : undefined,
+    gammaSource: g.kind === "user-gradient" ? g.gradientSource : "",
     maxVoltageVpp: c.generator.maxVoltageVpp,
-    minFrequencyKHz: tidy(fromSI("kHz", c.generator.minFrequency)),
-    maxFrequencyMHz: tidy(fromSI("MHz", c.generator.maxFrequency)),
+    minFrequency: lab("minFrequency", c.generator.minFrequency),
+    maxFrequency: lab("maxFrequency", c.generator.maxFrequency),
     notes: c.notes,
   };
 }

@@ -65,7 +65,7 @@ const SURFACES: Record<BufferFieldKey, Partial<Record<Surface, Setter>>> = {
   },
   amountPerLitre: {
     library: (x) => library((c) => (at(c, "recipe", "additions", 0).amountPerLitre = x)),
-    form: (x) => form((f) => (at(f, "additions", 0).amountPerLitre = lab("amountPerLitre", x))),
+    form: (x) => form((f) => (at(f, "additions", 0).perLitre = lab("amountPerLitre", x))),
     protocol: (x) => protocol((b) => (at(b, "recipe", "additions", 0).perLitre = x)),
   },
   volume: { step: (x) => step((v) => (v.volumeMl = lab("volume", x))) },
@@ -83,7 +83,7 @@ const SURFACES: Record<BufferFieldKey, Partial<Record<Surface, Setter>>> = {
   },
   temperatureC: {
     library: (x) => library((c) => (c.measured = { conductivity: 0.01, temperatureC: x })),
-    form: (x) => form((f) => Object.assign(f, { measuredConductivity: 10, measuredTemperatureC: lab("temperatureC", x) })),
+    form: (x) => form((f) => Object.assign(f, { measuredConductivity: 10, measuredAtC: lab("temperatureC", x) })),
     planner: (x) => planner((m) => (m.temperatureC = x)),
     step: (x) => step((v) => Object.assign(v, { mode: "measured", measuredAtC: lab("temperatureC", x) })),
   },

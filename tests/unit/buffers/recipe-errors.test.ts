@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { recipeFieldIssues } from "@/lib/buffers/recipe-errors";
 import { evaluateBuffer } from "@/lib/dielectric";
-import { predictRecipe as predictLibraryRecipe } from "@/lib/library/buffers/content";
+import { predictRecipe as predictLibraryRecipe } from "@/lib/buffers/recipe";
 import { defaultBuffer, predictRecipe } from "@/lib/wizard/buffer-form";
 
 const engineError = (recipe: Parameters<typeof evaluateBuffer>[0]): unknown => {
@@ -34,8 +34,9 @@ describe("recipe problems as field messages", () => {
     const wizard = predictRecipe({ ...defaultBuffer(), additions: [{ kind: "PBS1x", perLitre: -0.2 }] });
     expect(wizard.result).toBeNull();
     expect(wizard.error).toMatch(/^Buffer additions, line 1 \(phosphate-buffered saline, 1×\): /);
-    const library = predictLibraryRecipe({ sucrosePercentWV: 8.5, glucosePercentWV: 0.3, additions: [{ kind: "PBS1x", amountPerLitre: -0.2 }] });
-    expect(library && "error" in library ? library.error : "").toMatch(/^Buffer additions, line 1 \(phosphate-buffered saline, 1×\): /);
+    const library = predictLibraryRecipe({ sucrosePercentWV: 8.5, glucosePercentWV: 0.3, additions: [{ kind: "PBS1x", perLitre: -0.2 }] });
+    expect(library.result).toBeNull();
+    expect(library.error).toMatch(/^Buffer additions, line 1 \(phosphate-buffered saline, 1×\): /);
     expect(JSON.stringify([wizard, library])).not.toMatch(/Invalid request|additions\[/);
   });
 });

@@ -36,13 +36,13 @@ describe("library forms (lab units) and stored content (SI)", () => {
   });
 
   it("converts a buffer form in mS/m, mOsm/kg and % to SI, and back", () => {
-    const form = { ...formDefaults("buffers", null), ...meta, name: "Buffer", measuredConductivity: 10.4, measuredTemperatureC: 22, osmolality: 290 };
+    const form = { ...formDefaults("buffers", null), ...meta, name: "Buffer", measuredConductivity: 10.4, measuredAtC: 22, osmolality: 290 };
     const content = bufferFormToContent(bufferFormSchema.parse(form));
     expect(content.targetConductivity25).toBe(0.01); // 10 mS/m
     expect(content.measured).toEqual({ conductivity: 0.0104, temperatureC: 22 });
     expect(content.osmolality).toBe(0.29); // 290 mOsm/kg
     expect(bufferContentSchema.parse(content)).toEqual(content);
-    expect(bufferFormSchema.safeParse({ ...form, measuredTemperatureC: undefined }).error?.issues[0].message).toMatch(/needs the temperature/);
+    expect(bufferFormSchema.safeParse({ ...form, measuredAtC: undefined }).error?.issues[0].message).toMatch(/needs the temperature/);
   });
 
   it("converts a device form in µm, kHz and MHz to SI and gives Γ with its source", () => {
@@ -54,7 +54,7 @@ describe("library forms (lab units) and stored content (SI)", () => {
     // The engine's interdigitated preset documents Γ ≈ 6.6e13 m⁻³ for w = g = 20 µm at half a gap (lib/dielectric/motion.ts).
     expect(deviceGradient(content).gamma).toBeGreaterThan(6e13);
     expect(deviceGradient(content).gamma).toBeLessThan(7.2e13);
-    const bad = deviceFormSchema.safeParse({ ...form, minFrequencyKHz: 50_000, maxFrequencyMHz: 20 });
+    const bad = deviceFormSchema.safeParse({ ...form, minFrequency: 50_000, maxFrequency: 20 });
     expect(bad.error?.issues.map((i) => i.message)).toContain("Highest generator frequency (MHz): the highest generator frequency (20 MHz) must be above the lowest (50 MHz).");
   });
 
