@@ -55,6 +55,37 @@ export function arrayAreaOf(device: DeviceStepValues): { electrodeArrayArea?: nu
 }
 
 /**
+ * The limits step in SI (fractions, osmol/kg), the one conversion both the planner request and the protocol content
+ * (lib/wizard/to-protocol.ts) carry.
+ * @example limitsSI(defaultLimits()).minRecovery // 0.8 for 80 %
+ */
+export function limitsSI(l: LimitsStepValues) {
+  return {
+    maxTemperatureRise: l.maxTemperatureRise,
+    maxElectrothermalRatio: l.maxElectrothermalRatio,
+    maxTransmembranePotential: l.maxTransmembranePotential,
+    maxAcElectroosmosis: l.maxAcElectroosmosis,
+    osmolalityMin: l.osmolalityMin / 1000,
+    osmolalityMax: l.osmolalityMax / 1000,
+    minRecovery: l.minRecoveryPercent / 100,
+    minPurity: l.minPurityPercent / 100,
+    margin: l.margin,
+    slowCellQuantile: l.slowCellPercent / 100,
+    targetFraction: l.targetPercent / 100,
+  };
+}
+
+/**
+ * The electrode geometry of the device step in SI (m, m⁻³), as the planner request and the protocol content carry it.
+ * @example geometrySI(defaultDevice()) // { kind: "interdigitated", electrodeWidth: 2e-5, electrodeGap: 2e-5, height: 1e-5 }
+ */
+export function geometrySI(device: DeviceStepValues): WindowsRequest["device"]["geometry"] {
+  return device.geometry === "interdigitated"
+    ? { kind: "interdigitated", electrodeWidth: stepSI(device, "electrodeWidth"), electrodeGap: stepSI(device, "electrodeGap"), height: stepSI(device, "evalHeight") }
+    : { kind: "user", gamma: device.gamma, electrodeGap: stepSI(device, "electrodeGap") };
+}
+
+/**
  * Builds the planner request (SI, `windowsRequestSchema`) from validated step inputs. A fixed buffer gives a fixed
  * conductivity (windows at that conductivity); a range gives a log sweep of 31 conductivities.
  * @example toWindowsRequest(ready).device.maxVoltageVpp // 20
@@ -72,10 +103,8 @@ export function toWindowsRequest(r: Extract<ReadyInputs, { ok: true }>, seed = D
       ? { conductivityRange: { start: conductivityAtTemperature(choice.range25.low, t), stop: conductivityAtTemperature(choice.range25.high, t), points: 31 } }
       : { conductivity: conductivityAtTemperature(choice.conductivity25 ?? 0.01, t) }),
   };
-  const geometry: WindowsRequest["device"]["geometry"] =
-    device.geometry === "interdigitated"
-      ? { kind: "interdigitated", electrodeWidth: stepSI(device, "electrodeWidth"), electrodeGap: stepSI(device, "electrodeGap"), height: stepSI(device, "evalHeight") }
-      : { kind: "user", gamma: device.gamma, electrodeGap: stepSI(device, "electrodeGap") };
+  const geometry = geometrySI(device);
+  const l = limitsSI(limits);
   const drive =
     device.drive === "speed"
       ? { targetDepSpeed: stepSI(device, "targetSpeed") }
@@ -94,18 +123,18 @@ export function toWindowsRequest(r: Extract<ReadyInputs, { ok: true }>, seed = D
     frequencies: { ...PLAN_FREQUENCIES },
     device: { geometry, maxVoltageVpp: device.maxVoltageVpp, ...stepFrequencyRange(device), channelHeight: stepSI(device, "channelHeight"), ...arrayAreaOf(device), ...drive },
     constraints: {
-      maxTemperatureRise: limits.maxTemperatureRise,
-      maxElectrothermalRatio: limits.maxElectrothermalRatio,
-      maxTransmembranePotential: limits.maxTransmembranePotential,
-      maxAcElectroosmosis: limits.maxAcElectroosmosis,
-      osmolalityMin: limits.osmolalityMin / 1000,
-      osmolalityMax: limits.osmolalityMax / 1000,
-      minRecovery: limits.minRecoveryPercent / 100,
-      minPurity: limits.minPurityPercent / 100,
+      maxTemperatureRise: l.maxTemperatureRise,
+      maxElectrothermalRatio: l.maxElectrothermalRatio,
+      maxTransmembranePotential: l.maxTransmembranePotential,
+      maxAcElectroosmosis: l.maxAcElectroosmosis,
+      osmolalityMin: l.osmolalityMin,
+      osmolalityMax: l.osmolalityMax,
+      minRecovery: l.minRecovery,
+      minPurity: l.minPurity,
     },
-    separation: { margin: limits.margin, slowCellQuantile: limits.slowCellPercent / 100 },
+    separation: { margin: l.margin, slowCellQuantile: l.slowCellQuantile },
     sortDesign,
-    inputMix: { targetFraction: limits.targetPercent / 100 },
+    inputMix: { targetFraction: l.targetFraction },
     seed,
     samplesPerPopulation: 300,
     topN: 10,

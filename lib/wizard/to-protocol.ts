@@ -6,6 +6,7 @@ import { conductivityAt25 } from "@/lib/units/conductivity-temperature";
 import { ADDITION_NAMES, isSalt } from "@/lib/buffers/recipe";
 import { bufferChoice, type BufferStepValues } from "./buffer-form";
 import { stepFrequencyRange, stepSI, type DeviceStepValues } from "./device-form";
+import { geometrySI, limitsSI } from "./request";
 import type { LimitsStepValues } from "./limits-form";
 import type { PopulationsStepOutput } from "./population-form";
 import { behaviourText, toProtocolWarning } from "./results-data";
@@ -46,11 +47,11 @@ export function buildContent(src: ContentSources): ProtocolContent {
   const { populations, buffer, device, limits, request, result, window: w } = src;
   const choice = bufferChoice(buffer);
   const sigma25 = conductivityAt25(w.operatingPoint.conductivity, device.operatingTemperatureC);
-  const m = (key: "electrodeWidth" | "electrodeGap" | "evalHeight" | "channelHeight") => stepSI(device, key);
+  const g = geometrySI(device);
+  const channelHeight = stepSI(device, "channelHeight");
   const geometryDims: Record<string, number> =
-    device.geometry === "interdigitated"
-      ? { electrodeWidth: m("electrodeWidth"), electrodeGap: m("electrodeGap"), height: m("evalHeight"), channelHeight: m("channelHeight") }
-      : { electrodeGap: m("electrodeGap"), channelHeight: m("channelHeight") };
+    g.kind === "interdigitated" ? { electrodeWidth: g.electrodeWidth, electrodeGap: g.electrodeGap, height: g.height!, channelHeight } : { electrodeGap: g.electrodeGap, channelHeight };
+  const l = limitsSI(limits);
   const content: ProtocolContent = {
     populations: {
       target: { name: populations.target.name, ...(populations.target.libraryRef ? { libraryRef: populations.target.libraryRef } : {}), spec: populations.target.spec },
@@ -85,17 +86,17 @@ export function buildContent(src: ContentSources): ProtocolContent {
       ...stepFrequencyRange(device),
     },
     sortDesign: result.model.design.description,
-    inputMix: { targetFraction: limits.targetPercent / 100 },
+    inputMix: { targetFraction: l.targetFraction },
     limits: {
-      maxTemperatureRiseK: limits.maxTemperatureRise,
-      maxElectrothermalRatio: limits.maxElectrothermalRatio,
-      maxTransmembranePotentialV: limits.maxTransmembranePotential,
-      separationMarginReK: limits.margin,
-      slowCellShare: limits.slowCellPercent / 100,
-      minRecovery: limits.minRecoveryPercent / 100,
-      minPurity: limits.minPurityPercent / 100,
-      osmolalityMinOsmolPerKg: limits.osmolalityMin / 1000,
-      osmolalityMaxOsmolPerKg: limits.osmolalityMax / 1000,
+      maxTemperatureRiseK: l.maxTemperatureRise,
+      maxElectrothermalRatio: l.maxElectrothermalRatio,
+      maxTransmembranePotentialV: l.maxTransmembranePotential,
+      separationMarginReK: l.margin,
+      slowCellShare: l.slowCellQuantile,
+      minRecovery: l.minRecovery,
+      minPurity: l.minPurity,
+      osmolalityMinOsmolPerKg: l.osmolalityMin,
+      osmolalityMaxOsmolPerKg: l.osmolalityMax,
     },
     cellPrep: { washes: src.save.washes, resuspensionCellsPerMl: src.save.resuspensionMillionsPerMl * 1e6, notes: src.save.notes },
     selection: {

@@ -4,6 +4,8 @@ import { bufferChoice, bufferStepSchema, defaultBuffer, toEngineRecipe } from "@
 import { defaultDevice, deviceStepSchema, libraryDeviceToStep, meanFlowSpeed } from "@/lib/wizard/device-form";
 import { defaultLimits, limitsStepSchema } from "@/lib/wizard/limits-form";
 import { readyInputs, toWindowsRequest } from "@/lib/wizard/request";
+import { buildContent } from "@/lib/wizard/to-protocol";
+import { defaultSave } from "@/lib/wizard/save-form";
 import { conductivityAtTemperature } from "@/lib/units/conductivity-temperature";
 import { STARTING_POINTS } from "@/lib/wizard/starting-points";
 import { completedSteps } from "@/lib/wizard/progress";
@@ -55,6 +57,25 @@ describe("device and limits steps", () => {
 });
 
 describe("planner request from the wizard's steps", () => {
+  it("the protocol content carries the request's own SI limits, mix and geometry (one conversion of the steps)", () => {
+    const ready = readyInputs(inputs());
+    if (!ready.ok) throw new Error(ready.message);
+    const request = toWindowsRequest(ready);
+    const result = planWindows(request);
+    const window = result.windows[0];
+    if (!window) throw new Error("the default plan found no window");
+    const content = buildContent({ ...ready, request, result, window, save: defaultSave("Test"), flowRateUlPerMin: null });
+    const c = request.constraints!;
+    expect(content.limits).toEqual({
+      maxTemperatureRiseK: c.maxTemperatureRise, maxElectrothermalRatio: c.maxElectrothermalRatio, maxTransmembranePotentialV: c.maxTransmembranePotential,
+      separationMarginReK: request.separation!.margin, slowCellShare: request.separation!.slowCellQuantile, minRecovery: c.minRecovery, minPurity: c.minPurity,
+      osmolalityMinOsmolPerKg: c.osmolalityMin, osmolalityMaxOsmolPerKg: c.osmolalityMax,
+    });
+    expect(content.inputMix).toEqual(request.inputMix);
+    expect(content.device.dimensions).toEqual({ ...request.device.geometry, kind: undefined, channelHeight: request.device.channelHeight });
+    expect(content.device.maxVoltageVpp).toBe(request.device.maxVoltageVpp);
+  });
+
   it("builds a request the API's windows schema accepts, in SI", () => {
     const ready = readyInputs(inputs());
     expect(ready.ok).toBe(true);
