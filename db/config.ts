@@ -48,3 +48,23 @@ export function dbConfig(overrides: { database?: string; account?: DbAccount } =
     seeds: { directory: path.join(root, "db/seeds"), loadExtensions: [".ts"] },
   };
 }
+
+/**
+ * Refuses to run a process of the app (the web server, the outbox sender) whose environment holds the migrator's
+ * credentials: the app account cannot alter the schema, drop triggers or rewrite the audit trail, and that only holds
+ * if the app never has the migrator's password. `npm start` keeps them in .env.migrator (which Next.js does not
+ * load) and starts the app without them; an installation with one account (DB_MIGRATOR_USER unset or equal to
+ * DB_USER) passes.
+ * @example assertNoMigratorCredentials({ DB_USER: "app", DB_MIGRATOR_USER: "owner", DB_MIGRATOR_PASSWORD: "x" }) // throws
+ */
+export function assertNoMigratorCredentials(env: Record<string, string | undefined> = process.env): void {
+  const user = env.DB_MIGRATOR_USER ?? "";
+  const password = env.DB_MIGRATOR_PASSWORD ?? "";
+  if (password === "" && user === "") return;
+  if (user !== "" && user === (env.DB_USER ?? "sievewright")) return;
+  throw new Error(
+    "Configuration error: DB_MIGRATOR_USER / DB_MIGRATOR_PASSWORD are in the app's environment. The migrator's " +
+      "credentials belong in .env.migrator (read only by db:migrate, db:backup and db:restore), never in .env or the " +
+      "app's environment: move those lines there (npm start does it for you) and start the app without them.",
+  );
+}

@@ -1,4 +1,4 @@
-import "./load-env";
+import "./load-migrator-env";
 import path from "node:path";
 import { createBackup } from "../lib/backup/create";
 

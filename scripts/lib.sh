@@ -32,21 +32,47 @@ ensure_node_modules() {
   fi
 }
 
-# ensure_env — writes .env from .env.example with a generated secret if there is none; adds the migrator account
-# (DB_MIGRATOR_USER, DB_MIGRATOR_PASSWORD with a generated password) to an .env written before the accounts were split.
+# ensure_env — writes .env from .env.example with a generated NEXTAUTH_SECRET if there is none, and .env.migrator
+# (DB_MIGRATOR_USER and a generated DB_MIGRATOR_PASSWORD; mode 600) if there is none. The migrator's credentials live
+# apart from .env because Next.js loads .env into the app process itself: an .env written before the split has its
+# DB_MIGRATOR_* lines moved into .env.migrator (README, "Security").
 ensure_env() {
   local gen='console.log(require("crypto").randomBytes(32).toString("base64url"))'
   if [ ! -f "$ROOT/.env" ]; then
-    local secret migrator; secret="$(node -e "$gen")"; migrator="$(node -e "$gen")"
-    sed -e "s|^NEXTAUTH_SECRET=.*|NEXTAUTH_SECRET=$secret|" -e "s|^DB_MIGRATOR_PASSWORD=.*|DB_MIGRATOR_PASSWORD=$migrator|" \
-      "$ROOT/.env.example" > "$ROOT/.env"
-    say "Wrote .env from .env.example with a new NEXTAUTH_SECRET and migrator password"
-  elif ! grep -q '^DB_MIGRATOR_USER=' "$ROOT/.env"; then
-    printf '\n# Database account for migrations (README, "Security"); the app runs as DB_USER with fewer rights.\nDB_MIGRATOR_USER=sievewright_migrator\nDB_MIGRATOR_PASSWORD=%s\n' \
-      "$(node -e "$gen")" >> "$ROOT/.env"
-    say "Added the migrator database account (DB_MIGRATOR_USER) to .env"
+    sed -e "s|^NEXTAUTH_SECRET=.*|NEXTAUTH_SECRET=$(node -e "$gen")|" "$ROOT/.env.example" > "$ROOT/.env"
+    say "Wrote .env from .env.example with a new NEXTAUTH_SECRET"
   fi
+  if [ ! -f "$ROOT/.env.migrator" ]; then
+    local user pass
+    user="$(sed -n 's/^DB_MIGRATOR_USER=//p' "$ROOT/.env" | tail -n 1)"
+    pass="$(sed -n 's/^DB_MIGRATOR_PASSWORD=//p' "$ROOT/.env" | tail -n 1)"
+    [ -n "$user" ] || user=sievewright_migrator
+    { [ -n "$pass" ] && [ "$pass" != "change-me" ]; } || pass="$(node -e "$gen")"
+    (umask 077 && cat > "$ROOT/.env.migrator" <<EOF_MIGRATOR) || die "Writing .env.migrator failed."
+# Database account for migrations, grants, backups and restores (README, "Security"). Read only by npm run db:migrate,
+# db:backup, db:restore and npm start's set-up; never by the app: Next.js does not load this file, and npm start
+# removes DB_MIGRATOR_* from the environment of the app and the outbox sender.
+DB_MIGRATOR_USER=$user
+DB_MIGRATOR_PASSWORD=$pass
+EOF_MIGRATOR
+    chmod 600 "$ROOT/.env.migrator"
+    if grep -q '^DB_MIGRATOR_' "$ROOT/.env"; then
+      sed -i '/^DB_MIGRATOR_/d' "$ROOT/.env"
+      say "Moved the migrator account (DB_MIGRATOR_*) from .env into .env.migrator (mode 600): the app no longer sees it"
+    else
+      say "Wrote .env.migrator (mode 600) with the migrator account and a new password"
+    fi
+  elif grep -q '^DB_MIGRATOR_' "$ROOT/.env"; then
+    sed -i '/^DB_MIGRATOR_/d' "$ROOT/.env"
+    say "Removed DB_MIGRATOR_* from .env (they belong in .env.migrator; Next.js loads .env into the app)"
+  fi
+  chmod 600 "$ROOT/.env.migrator"
 }
+
+# "${WITHOUT_MIGRATOR[@]}" CMD... — runs CMD with DB_MIGRATOR_USER and DB_MIGRATOR_PASSWORD removed from its
+# environment: the app, the outbox sender, the build and the helpers never hold the migrator's credentials. An array,
+# not a function, so `"${WITHOUT_MIGRATOR[@]}" node … &` leaves $! the PID of node itself (env execs it).
+WITHOUT_MIGRATOR=(env -u DB_MIGRATOR_USER -u DB_MIGRATOR_PASSWORD)
 
 # port_free PORT — true when nothing listens on 127.0.0.1:PORT.
 port_free() { ! (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
@@ -136,7 +162,7 @@ s3_fake_start() {
   esac
   local port="${S3_ENDPOINT#http://*:}"; port="${port%%/*}"
   port_free "$port" || die "Port $port (local object store) is in use. Stop what uses it (ss -ltnp | grep :$port) or set S3_ENDPOINT in .env."
-  S3_FAKE_DIR="$1" node --import tsx "$ROOT/scripts/s3-fake.ts" & S3_PID=$!
+  S3_FAKE_DIR="$1" "${WITHOUT_MIGRATOR[@]}" node --import tsx "$ROOT/scripts/s3-fake.ts" & S3_PID=$!
   local i=0
   until ! port_free "$port"; do
     sleep 0.2; i=$((i+1))

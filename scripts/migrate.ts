@@ -1,4 +1,4 @@
-import "./load-env";
+import "./load-migrator-env";
 import { migrateLatest, migratorDb } from "../db/migrator";
 
 /**

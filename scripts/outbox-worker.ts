@@ -1,9 +1,11 @@
+import { assertNoMigratorCredentials } from "../db/config";
 import { db } from "../db/knex";
 import { readEnv } from "../lib/env";
 import { deliverDueMail } from "../lib/mail/sender";
 import { smtpTransport } from "../lib/mail/transport";
 
 /** The outbox sender: its own process, polling mail_outbox every OUTBOX_POLL_MS and delivering over SMTP. */
+assertNoMigratorCredentials();
 const pollMs = readEnv().OUTBOX_POLL_MS;
 const transport = smtpTransport();
 let stopping = false;

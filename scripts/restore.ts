@@ -1,4 +1,4 @@
-import "./load-env";
+import "./load-migrator-env";
 import { restoreBackup } from "../lib/backup/restore";
 
 /** npm run db:restore -- ARCHIVE [--force]: checks every checksum, then restores the database and the stored objects. */

@@ -11,9 +11,13 @@ RUN_DIR="$ROOT/.data/test-$$"
 REPORTS="$RUN_DIR/reports"; mkdir -p "$REPORTS"
 export CI="${CI:-}" SIEVEWRIGHT_TEST=1 NEXT_TELEMETRY_DISABLED=1
 export DB_HOST=127.0.0.1 DB_PORT="${TEST_DB_PORT:-3317}" DB_USER=sw_test DB_PASSWORD=sw-test-pass DB_NAME=sw_e2e
-# Two accounts as in production: migrations (and the tests' own set-up) run as the migrator; the app, the outbox sender
-# and the code under test run as sw_test, which has row privileges only (README, "Security").
-export DB_MIGRATOR_USER=sw_test_migrator DB_MIGRATOR_PASSWORD=sw-test-migrator-pass
+# Two accounts as in production: migrations (and the integration tests' own set-up) run as the migrator; the app, the
+# outbox sender and the code under test run as sw_test, which has row privileges only (README, "Security"). The
+# migrator's credentials are shell variables, not exported: only db_accounts, the migration step and the integration
+# runner get them (MIGRATOR_ENV), so the app under the end-to-end tests runs without them, as under npm start.
+DB_MIGRATOR_USER=sw_test_migrator DB_MIGRATOR_PASSWORD=sw-test-migrator-pass
+export -n DB_MIGRATOR_USER DB_MIGRATOR_PASSWORD
+MIGRATOR_ENV=(env DB_MIGRATOR_USER="$DB_MIGRATOR_USER" DB_MIGRATOR_PASSWORD="$DB_MIGRATOR_PASSWORD")
 export APP_PORT="${TEST_APP_PORT:-3100}"
 export NEXTAUTH_URL="http://127.0.0.1:$APP_PORT" NEXTAUTH_SECRET=test-secret-not-for-production
 export APP_BASE_URL="http://127.0.0.1:$APP_PORT"
@@ -69,13 +73,13 @@ fi
 
 if tier integration; then
 say "Integration tests (MariaDB on 127.0.0.1:$DB_PORT)"
-DB_NAME=sw_it npx vitest run --project integration ${VITEST_FILTER:-} --reporter=default --reporter=json --outputFile.json="$REPORTS/integration.json"
+DB_NAME=sw_it "${MIGRATOR_ENV[@]}" npx vitest run --project integration ${VITEST_FILTER:-} --reporter=default --reporter=json --outputFile.json="$REPORTS/integration.json"
 count_json "integration" "$REPORTS/integration.json" $?
 fi
 
 if tier e2e; then
 say "Migrate and seed the end-to-end database"
-node --import tsx scripts/migrate.ts && node --import tsx scripts/seed.ts; step_result "migrate+seed" $?
+"${MIGRATOR_ENV[@]}" node --import tsx scripts/migrate.ts && node --import tsx scripts/seed.ts; step_result "migrate+seed" $?
 
 say "Production build"
 node node_modules/next/dist/bin/next build; step_result "build" $?
