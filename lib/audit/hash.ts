@@ -17,12 +17,9 @@ export interface AuditFields {
 }
 
 /** The fields of one audit event that its hash covers (as stored: JSON columns as their parsed values). */
-export interface HashedEvent extends AuditFields {
+export interface HashedEvent extends StoredEventFields {
   seq: number;
   prevHash: string;
-  occurredAt: Date;
-  before: unknown;
-  after: unknown;
 }
 
 /** A JSON value with every object's keys in code-point order, so equal values always serialise to equal text. */
@@ -55,14 +52,20 @@ export function parseStoredJson(value: unknown): unknown {
   return typeof value === "string" ? JSON.parse(value) : value;
 }
 
+/** The stored fields of one audit event as the app reads them (everything but its place in the chain). */
+export interface StoredEventFields extends AuditFields {
+  occurredAt: Date;
+  before: unknown;
+  after: unknown;
+}
+
 /**
- * The hashed fields of a stored audit_events row (snake_case columns as Knex returns them).
- * @example hashedFromRow(await db("audit_events").where({ id: 7 }).first())
+ * The one mapping of a stored audit_events row (snake_case columns as Knex returns them) to its fields: used by the
+ * hash (hashedFromRow) and by the app's reads (lib/audit/repo.ts), so what is shown is what is hashed.
+ * @example eventFieldsFromRow(await db("audit_events").where({ id: 7 }).first()).action // "user.create"
  */
-export function hashedFromRow(row: Record<string, unknown>): HashedEvent {
+export function eventFieldsFromRow(row: Record<string, unknown>): StoredEventFields {
   return {
-    seq: Number(row.chain_seq),
-    prevHash: String(row.prev_hash),
     occurredAt: new Date(row.occurred_at as string | Date),
     actorId: row.actor_id === null || row.actor_id === undefined ? null : Number(row.actor_id),
     actorEmail: (row.actor_email as string | null) ?? null,
@@ -73,4 +76,12 @@ export function hashedFromRow(row: Record<string, unknown>): HashedEvent {
     before: parseStoredJson(row.before_json),
     after: parseStoredJson(row.after_json),
   };
+}
+
+/**
+ * The hashed fields of a stored audit_events row (snake_case columns as Knex returns them).
+ * @example hashedFromRow(await db("audit_events").where({ id: 7 }).first())
+ */
+export function hashedFromRow(row: Record<string, unknown>): HashedEvent {
+  return { seq: Number(row.chain_seq), prevHash: String(row.prev_hash), ...eventFieldsFromRow(row) };
 }

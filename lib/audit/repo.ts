@@ -1,14 +1,11 @@
 import type { Knex } from "knex";
 import { db } from "@/db/knex";
 import { appendToChain } from "./chain";
-import { parseStoredJson, type AuditFields } from "./hash";
+import { eventFieldsFromRow, type StoredEventFields } from "./hash";
 
 /** One entry of the append-only audit trail, as the app sees it. */
-export interface AuditEvent extends AuditFields {
+export interface AuditEvent extends StoredEventFields {
   id: number;
-  occurredAt: Date;
-  before: unknown;
-  after: unknown;
 }
 
 /** What a caller supplies to record an event. */
@@ -93,16 +90,5 @@ export async function latestEventOf(conn: Knex | Knex.Transaction, entityType: s
 }
 
 function toAuditEvent(row: Record<string, unknown>): AuditEvent {
-  return {
-    id: Number(row.id),
-    occurredAt: new Date(row.occurred_at as string),
-    actorId: row.actor_id === null ? null : Number(row.actor_id),
-    actorEmail: (row.actor_email as string | null) ?? null,
-    action: String(row.action),
-    entityType: String(row.entity_type),
-    entityId: String(row.entity_id),
-    summary: String(row.summary),
-    before: parseStoredJson(row.before_json),
-    after: parseStoredJson(row.after_json),
-  };
+  return { id: Number(row.id), ...eventFieldsFromRow(row) };
 }
