@@ -65,6 +65,9 @@ export const SAMPLE_PLACEHOLDERS = {
   draftVersion: "id of that protocol's draft version 2",
   population: "id of a seeded population",
   draft: "id of a planner draft belonging to the demo developer",
+  fittedPopulation: "id of a population the walker fits from a crossover file (through the fit service), so a version holds a data file",
+  fittedVersion: "that population's version holding the data file",
+  attachment: "id of a run attachment the walker uploads as the demo technician (POST /api/v1/runs) on an approved version",
 } as const;
 
 const LETTERS: Record<string, Outcome> = { A: "allowed", R: "refused", N: "not_found" };
@@ -163,11 +166,13 @@ export const AUTHZ_MATRIX: readonly MatrixRow[] = [
   route("GET",  "/api/v1/library/[kind]/export",                                "R   A   A   R   A   R", "/api/v1/library/populations/export"),
   route("POST", "/api/v1/library/[kind]/import",                                "R   A   R   R   R   R", "/api/v1/library/populations/import"),
   route("POST", "/api/v1/library/[kind]/[id]/fit",                              "R   A   R   R   R   R", "/api/v1/library/populations/{population}/fit"),
+  route("GET",  "/api/v1/library/[kind]/[id]/versions/[version]/data-file",     "R   A   A   R   A   R", "/api/v1/library/populations/{fittedPopulation}/versions/{fittedVersion}/data-file", "the uploaded file, byte for byte"),
   route("GET",  "/api/v1/library/[kind]/[id]/versions/[version]/data-file",     "R   N   N   R   N   R", "/api/v1/library/populations/{population}/versions/1/data-file", "seeded versions hold no data file"),
   route("GET",  "/api/v1/protocols/[id]/versions/[n]/bench-sheet",             "R   A   A   A   A   R", "/api/v1/protocols/{protocol}/versions/1/bench-sheet"),
   route("GET",  "/api/v1/protocols/[id]/versions/[n]/bench-sheet",             "R   A   A   N   A   R", "/api/v1/protocols/{protocol}/versions/2/bench-sheet", "a draft's sheet is hidden from technicians"),
   route("GET",  "/api/v1/protocols/[id]/versions/[n]/exports/[table]",          "R   A   A   R   A   R", "/api/v1/protocols/{protocol}/versions/1/exports/windows"),
   route("POST", "/api/v1/runs",                                                 "R   R   R   A   R   R"),
+  route("GET",  "/api/v1/runs/attachments/[attachmentId]",                      "R   A   A   A   A   R", "/api/v1/runs/attachments/{attachment}", "the uploaded file, byte for byte"),
   route("GET",  "/api/v1/runs/attachments/[attachmentId]",                      "R   N   N   N   N   R", "/api/v1/runs/attachments/999999999"),
   route("GET",  "/api/v1/audit.csv",                                            "R   R   A   R   A   A"),
 

@@ -2,8 +2,12 @@ import { expect, test, type APIRequestContext, type APIResponse } from "@playwri
 import { db } from "@/db/knex";
 import { SPECTRA_EXAMPLE, SWEEP_EXAMPLE } from "@/lib/api/examples";
 import { ACTORS, rowLabel, rowsOf, type Actor, type MatrixRow, type Outcome, type SAMPLE_PLACEHOLDERS } from "@/lib/authz/matrix";
+import { exampleCrossoverCsv } from "@/lib/fitting";
+import { saveFittedPopulation } from "@/lib/library/fit-service";
+import { createItem, getItem } from "@/lib/library/service";
 import { startDraft } from "@/lib/wizard/drafts/service";
 import { findUserById } from "@/lib/users/repo";
+import { insertBenchVersion } from "@/tests/support/bench-fixture";
 import { DEMO, DEMO_PASSWORD } from "./support/auth";
 import { releaseDb } from "./support/db";
 
@@ -16,6 +20,9 @@ import { releaseDb } from "./support/db";
 
 const contexts = {} as Record<Actor, APIRequestContext>;
 let values = {} as Record<keyof typeof SAMPLE_PLACEHOLDERS, string>;
+
+/** Downloads walked with a real record: the bytes an allowed actor must get (filled in beforeAll). */
+const EXPECTED_BYTES: Record<string, Buffer> = {};
 
 /** Example bodies for the compute routes that answer quickly; other POSTs get `{}`, which the route refuses as input. */
 const BODIES: Record<string, unknown> = { [SPECTRA_EXAMPLE.path]: SPECTRA_EXAMPLE.body, [SWEEP_EXAMPLE.path]: SWEEP_EXAMPLE.body };
@@ -75,6 +82,12 @@ async function routeOutcome(res: APIResponse, actor: Actor): Promise<[Outcome | 
   }
   if ((status >= 200 && status < 400) || [400, 409, 413, 415, 422].includes(status)) {
     if (status === 200 && (await res.body()).length === 0) return ["error", "200 with an empty body"];
+    const expected = EXPECTED_BYTES[new URL(res.url()).pathname];
+    if (expected) {
+      if (status !== 200) return ["error", `${status} where the file was expected`];
+      if (!(await res.body()).equals(expected)) return ["error", "200 with other bytes than the uploaded file"];
+      return ["allowed", "200 with the uploaded bytes"];
+    }
     return ["allowed", `${status}`];
   }
   return ["error", `${status}`];
@@ -101,13 +114,40 @@ test.beforeAll(async ({ playwright, baseURL }) => {
   const protocol = await db("protocols").where({ title: "Larkspur viable yeast enrichment" }).first("id");
   const version = async (number: number) => String((await db("protocol_versions").where({ protocol_id: protocol.id, number }).first("id", "state")).id);
   const dana = await db("users").where({ email: DEMO.developer }).first("id");
+  const developer = (await findUserById(dana.id))!;
+
+  // A real data file: a population of its own, fitted from a crossover file through the fit service (as the fit page does).
+  const seeded = await getItem("populations", Number((await db("populations").where({ name: "Quarry Hill live lymphocytes" }).first("id")).id));
+  const own = await createItem(developer, "populations", {
+    content: { ...seeded.current.content, name: `Authz matrix fit ${Date.now().toString(36)}` },
+    provenance: { kind: "assumed", source: "authorisation-matrix walk" },
+    changeNote: "for the authorisation matrix",
+  });
+  const csvText = exampleCrossoverCsv({ capacitance: 0.0108, conductance: 160, radius: 3.6e-6 });
+  const fitted = await saveFittedPopulation(developer, own.id, { baseVersion: 1, fileName: "authz-crossovers.csv", csvText, dropBadRows: true, radius: 3.6e-6 });
+
+  // A real run attachment: the technician records a run with a file on an approved version, through the API.
+  const { versionId } = await insertBenchVersion(db, { code: `AUTHZ-${Date.now().toString(36).toUpperCase()}`, state: "approved", title: "Authorisation matrix run" });
+  const attachmentBytes = Buffer.from(`gate,events,note\nlive,${Date.now() % 100000},authorisation matrix\ndead,412,check\n`, "utf8");
+  const form = new FormData();
+  form.set("run", JSON.stringify({ versionId, bufferLot: "B-authz", conductivityUsPerCm: "98", measuredAtC: "24", operatingTemperatureC: "22", frequencyKHz: "350", voltageVpp: "14.1" }));
+  form.append("attachments", new File([new Uint8Array(attachmentBytes)], "authz-gate.csv", { type: "text/csv" }));
+  const run = await contexts.technician.post("/api/v1/runs", { headers: { origin: baseURL! }, multipart: form });
+  expect(run.status(), await run.text()).toBe(201);
+  const attachment = String((await run.json()).run.attachments[0].id);
+
   values = {
     protocol: String(protocol.id),
     approvedVersion: await version(1),
     draftVersion: await version(2),
     population: String((await db("populations").orderBy("id").first("id")).id),
-    draft: String((await startDraft((await findUserById(dana.id))!)).id),
+    draft: String((await startDraft(developer)).id),
+    fittedPopulation: String(own.id),
+    fittedVersion: String(fitted.currentVersion),
+    attachment,
   };
+  EXPECTED_BYTES[`/api/v1/library/populations/${own.id}/versions/${fitted.currentVersion}/data-file`] = Buffer.from(csvText, "utf8");
+  EXPECTED_BYTES[`/api/v1/runs/attachments/${attachment}`] = attachmentBytes;
 });
 
 test.afterAll(async () => {
