@@ -5,7 +5,7 @@ import { isRole } from "./roles";
 import { signInErrorText, signInWithPassword } from "./password-checks";
 import { authConfig } from "./config";
 import { safeRedirectUrl } from "./redirect";
-import { endSession, startSession } from "./sessions";
+import { endSession, peekSession, startSession } from "./sessions";
 import { clientAddress, type HeaderSource } from "@/lib/http/client-address";
 import { signInSchema } from "@/lib/users/schemas";
 import { isDatabaseUnavailable } from "@/db/outage";
@@ -17,6 +17,14 @@ import { servedOverHttps } from "@/lib/http/security-headers";
  * server-side session id (lib/auth/sessions.ts) that every request checks and sign-out ends; redirects only ever go to
  * a path on our own origin. The cookie lives no longer than the session's absolute lifetime.
  */
+/** Thrown by the jwt callback for a token whose session ended; next-auth then answers `{}` and clears the cookie. */
+class SessionEndedError extends Error {
+  constructor(state: string) {
+    super(`session ${state}`);
+    this.name = "SessionEndedError";
+  }
+}
+
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: authConfig().SESSION_MAX_HOURS * 60 * 60 },
   pages: { signIn: "/login" },
@@ -44,6 +52,14 @@ export const authOptions: NextAuthOptions = {
       },
     }),
   ],
+  // An ended session at /api/auth/session is expected (a copied or stale cookie), not a server error worth a stack trace.
+  logger: {
+    error(code, metadata) {
+      const name = (metadata as { name?: string; error?: { name?: string } } | undefined)?.name ?? (metadata as { error?: { name?: string } })?.error?.name;
+      if (code === "JWT_SESSION_ERROR" && name === "SessionEndedError") return;
+      console.error(`[next-auth][error][${code}]`, metadata);
+    },
+  },
   events: {
     async signOut({ token }) {
       if (typeof token?.sid === "string") await endSession(token.sid);
@@ -58,7 +74,20 @@ export const authOptions: NextAuthOptions = {
         token.uid = Number(user.id);
         token.role = (user as { role?: string }).role;
         token.sid = (user as { sid?: string }).sid;
+        return token;
       }
+      // next-auth's own /api/auth/session: a token whose server-side session ended (sign-out, time-out, deactivation)
+      // answers "no session" and its cookie is cleared, instead of the user a copied cookie still names.
+      // While the database is down nothing can be judged: keep the cookie (every page and API call checks the session
+      // again and shows the outage), so users are not signed out by an outage.
+      let state: string;
+      try {
+        state = typeof token.sid === "string" ? await peekSession(token.sid) : "unknown";
+      } catch (err) {
+        if (isDatabaseUnavailable(err)) return token;
+        throw err;
+      }
+      if (state !== "live") throw new SessionEndedError(state);
       return token;
     },
     async session({ session, token }) {

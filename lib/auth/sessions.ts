@@ -67,6 +67,16 @@ export async function resolveSession(sid: string): Promise<{ user: User | null; 
 }
 
 /**
+ * Whether a session is live, without counting the question as activity (next-auth's /api/auth/session asks it; a
+ * browser polling that endpoint must not keep an idle session alive). Returns the state.
+ * @example if ((await peekSession(token.sid)) !== "live") … // a copied cookie after sign-out: "revoked"
+ */
+export async function peekSession(sid: string): Promise<SessionState> {
+  if (!sid || sid.length > 128) return "unknown";
+  return sessionState(await repo.findSessionWithUser(hashId(sid)));
+}
+
+/**
  * Ends a session at sign-out (audited); a session already ended is left as it is.
  * @example await endSession(token.sid);
  */

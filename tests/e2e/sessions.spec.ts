@@ -7,7 +7,7 @@ test.afterAll(async () => {
   await releaseDb();
 });
 
-test("sign-out ends the session on the server: a copied session cookie is dead afterwards", async ({ browser, page }) => {
+test("sign-out ends the session on the server: a copied session cookie is dead afterwards", async ({ browser, page, playwright, baseURL }) => {
   await signIn(page, DEMO.developer);
   const copied = (await page.context().cookies()).filter((c) => c.name.includes("next-auth.session-token"));
   expect(copied.length).toBeGreaterThan(0);
@@ -18,6 +18,9 @@ test("sign-out ends the session on the server: a copied session cookie is dead a
   const thiefPage = await thief.newPage();
   await thiefPage.goto("/protocols");
   await expect(thiefPage.getByTestId("current-user")).toBeVisible();
+  // replayed as a bare Cookie header, as a script would (no browser jar that may have dropped it)
+  const replay = await playwright.request.newContext({ baseURL, extraHTTPHeaders: { cookie: copied.map((c) => `${c.name}=${c.value}`).join("; ") } });
+  expect((await (await replay.get("/api/auth/session")).json()).user?.email).toBe(DEMO.developer);
 
   await page.getByRole("button", { name: "Sign out" }).click();
   await expect(page).toHaveURL(/\/login/);
@@ -27,6 +30,12 @@ test("sign-out ends the session on the server: a copied session cookie is dead a
   await expect(thiefPage.getByRole("heading", { name: "Sign in" })).toBeVisible();
   const api = await thief.request.post("/api/v1/spectra", { data: {}, headers: { origin: new URL(thiefPage.url()).origin } });
   expect(api.status()).toBe(401);
+  // next-auth's own session endpoint no longer names the user either (found by npm run attack), and clears the cookie
+  const session = await replay.get("/api/auth/session");
+  expect(session.status()).toBe(200);
+  expect(await session.json()).toEqual({});
+  expect(session.headers()["set-cookie"] ?? "").toMatch(/next-auth\.session-token=;/);
+  await replay.dispose();
   await thief.close();
 });
 
