@@ -1,7 +1,8 @@
 import type { ProtocolContent } from "@/lib/protocols/content";
-import { formatConductivity, formatFlow, formatFrequency, formatPercent, formatTemperature, formatTemperatureRise, formatVpp, formatVrms } from "@/lib/units/format";
+import { formatConductivity, formatFlow, formatFrequency, formatPercent, formatTemperature, formatVpp, formatVrms } from "@/lib/units/format";
 import { sig } from "@/lib/units/number";
 import { rankedWindows } from "@/lib/protocols/windows";
+import { flowText, heatingText } from "@/lib/bench-sheet/flow";
 
 const SEVERITY: Record<string, string> = {
   info: "border-tide/30 bg-tide-light",
@@ -23,7 +24,7 @@ export function ResultsView({ content }: { content: ProtocolContent }) {
         <Big label="Drive frequency" value={formatFrequency(s.frequency)} sub={`band ${formatFrequency(s.band.low)} – ${formatFrequency(s.band.high)}`} />
         <Big label="Medium conductivity" value={formatConductivity(s.conductivity)} sub={`at ${formatTemperature(s.temperatureC)}`} />
         <Big label="Drive voltage" value={formatVpp(s.voltageVpp)} sub={`${formatVrms(s.voltageVrms)}, ${s.waveform}`} />
-        <Big label="Flow" value={formatFlow(s.flowRateUlPerMin)} sub={`heating ΔT ≈ ${formatTemperatureRise(s.predicted.deltaT)}`} />
+        <Big label="Flow" value={s.flowRateUlPerMin === null ? "not set" : formatFlow(s.flowRateUlPerMin)} sub={s.flowRateUlPerMin === null ? "drive sized for a DEP speed; the sort still moves cells with a flow" : flowText(s.flowRateUlPerMin, content.plan.result).replace(/^[^;]*;?\s*/, "")} />
       </div>
       <div className="grid gap-3 sm:grid-cols-2">
         <div className="rounded-md border border-ember/30 bg-ember-light p-3 text-sm">
@@ -35,6 +36,7 @@ export function ResultsView({ content }: { content: ProtocolContent }) {
           <p>{s.behaviour.other}</p>
         </div>
       </div>
+      <p className="text-sm" data-testid="predicted-heating">Predicted heating {heatingText(s.predicted.deltaT, s.rank, content.plan.result)}.</p>
       <p className="text-sm">
         Predicted recovery <strong data-testid="predicted-recovery">{formatPercent(s.predicted.recovery)}</strong>, purity{" "}
         <strong data-testid="predicted-purity">{formatPercent(s.predicted.purity)}</strong>.

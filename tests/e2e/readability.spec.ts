@@ -77,3 +77,17 @@ test("the API token table writes dates as ISO (YYYY-MM-DD hh:mm:ss UTC), like ev
   await expect(row).not.toContainText(/\d{2}\/\d{2}\/\d{4}/);
   await expect(row).toContainText("never");
 });
+
+test("an evaluation height above the channel is refused next to the field, naming the value and the channel height", async ({ page }) => {
+  await signIn(page, DEMO.developer);
+  await page.goto("/planner");
+  await page.getByRole("button", { name: "Start a new plan" }).click();
+  await page.waitForURL(/\/planner\/\d+\/populations$/);
+  await page.goto(page.url().replace(/populations$/, "device"));
+  await page.getByLabel("Interdigitated electrodes (preset)").check();
+  await page.locator("#device-channelHeight").fill("50");
+  await page.locator("#device-evalHeight").fill("500");
+  await page.locator("#device-channelHeight").click();
+  await expect(page.locator("#device-evalHeight-error")).toHaveText("Height above the electrodes where cells are judged (µm): 500 µm is not inside the channel; enter a height from 0 up to below the channel height (50 µm).");
+  await snap(page, "readability-02-eval-height");
+});
