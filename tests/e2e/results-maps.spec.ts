@@ -78,6 +78,10 @@ test.describe("results maps", () => {
         await expect(sentence).toContainText("lower the minimum purity");
       } else {
         await expect(page.getByTestId("window-row").first()).toBeVisible();
+        // Distinct windows: no two rows describe the same band at the same operating point and region (neighbouring
+        // rows of one feasible region are merged into one window with a conductivity span).
+        const rows = await page.getByTestId("window-row").evaluateAll((trs) => trs.map((tr) => Array.from(tr.querySelectorAll("td")).slice(1, 3).map((td) => td.textContent).join(" | ")));
+        expect(new Set(rows).size).toBe(rows.length);
       }
       // Hover: the read-out gives the mean cell's Re[K] with its DEP sign, and the limits refusing the point (or none).
       const map = page.getByTestId("sweep-heatmap");
