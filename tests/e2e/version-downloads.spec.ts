@@ -68,3 +68,21 @@ test("version page: CSV of sweep map, windows and spectra, and every chart as SV
   await card.scrollIntoViewIfNeeded();
   await snap(page, "version-downloads-01");
 });
+
+test("version page of a capture plan on an interdigitated chip: generator range, array heating, and no 'static' flow", async ({ page }) => {
+  const protocol = await db("protocols").where({ title: "Larkspur viable yeast enrichment" }).first("id");
+  await signIn(page, DEMO.supervisor);
+  await page.goto(`/protocols/${protocol.id}/versions/1`);
+  const results = page.getByTestId("results");
+  // The device's generator stops at 20 MHz (seeded device); the plan says so and its windows stay inside.
+  await expect(results).toContainText("beyond the generator's");
+  const bands = await results.locator("table tbody tr td:nth-child(3)").allTextContents();
+  expect(bands.length).toBeGreaterThan(0);
+  for (const band of bands) {
+    const top = /–\s*([0-9.]+) (kHz|MHz)/.exec(band)!;
+    expect(Number(top[1]) * (top[2] === "MHz" ? 1e6 : 1e3)).toBeLessThanOrEqual(20e6);
+  }
+  await expect(page.getByTestId("predicted-heating")).toContainText("over the electrode array (array estimate; isolated pair");
+  await expect(results).not.toContainText(/static|no flow/);
+  await snap(page, "version-page-limits");
+});
