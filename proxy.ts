@@ -1,10 +1,11 @@
 import { NextResponse, type NextFetchEvent, type NextRequest } from "next/server";
 import { withAuth, type NextRequestWithAuth } from "next-auth/middleware";
+import { cachedDecode } from "@/lib/auth/token-cache";
 import { checkActionBody } from "@/lib/http/action-body";
 import { newNonce, securityHeaders, servedOverHttps } from "@/lib/http/security-headers";
 
 /** Signed-out visitors to any signed-in page are sent to /login (roles are checked again on the server). */
-const authGate = withAuth({ pages: { signIn: "/login" } });
+const authGate = withAuth({ pages: { signIn: "/login" }, jwt: { decode: cachedDecode } });
 
 /** Paths that need no session here: sign-in, the API (it answers 401 itself) and static files. */
 const PUBLIC_PATH = /^\/(login|api|_next|favicon\.ico|fonts|robots\.txt)(\/|$)/;

@@ -2,7 +2,7 @@ import { PrintForm } from "@/components/bench/print-form";
 import { timed } from "@/lib/http/page-timing";
 import type { ProtocolContent } from "@/lib/protocols/content";
 import { listRunsForVersion } from "@/lib/runs/repo";
-import { ObservedChart } from "./observed-chart";
+import { ObservedChartLazy } from "./observed-chart-lazy";
 import { RunsTable } from "./runs-table";
 
 /** What the runs section needs of the version its page has already read. */
@@ -36,7 +36,7 @@ export async function VersionRuns({ version, benchReady, showPrint = true }: { v
         )}
       </header>
       {showPrint && <PrintForm protocolId={version.protocolId} number={version.number} benchReady={benchReady} />}
-      {points.some((p) => p.recovery !== null || p.purity !== null) && <ObservedChart points={points} predicted={predicted} />}
+      {points.some((p) => p.recovery !== null || p.purity !== null) && <ObservedChartLazy points={points} predicted={predicted} />}
       <RunsTable runs={runs} maxMinutesInBuffer={version.content.buffer.maxMinutesInBuffer} />
     </section>
   );

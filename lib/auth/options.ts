@@ -11,6 +11,7 @@ import { signInSchema } from "@/lib/users/schemas";
 import { isDatabaseUnavailable } from "@/db/outage";
 import { SIGN_IN_UNAVAILABLE } from "@/lib/http/outage-codes";
 import { servedOverHttps } from "@/lib/http/security-headers";
+import { cachedDecode } from "./token-cache";
 
 /**
  * next-auth configuration: credentials against the users table under the attempt limits; the JWT carries a
@@ -27,6 +28,8 @@ class SessionEndedError extends Error {
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: authConfig().SESSION_MAX_HOURS * 60 * 60 },
+  // Decoding a session token is remembered per token (lib/auth/token-cache.ts); encoding stays next-auth's own.
+  jwt: { decode: cachedDecode },
   pages: { signIn: "/login" },
   // Session and CSRF cookies get `Secure` (and the __Secure-/__Host- names) whenever the base URL is https.
   useSecureCookies: servedOverHttps(),

@@ -6,6 +6,7 @@ import { forbidden, redirect } from "next/navigation";
 import { authOptions } from "./options";
 import { can, type Capability } from "./roles";
 import { resolveSession } from "./sessions";
+import { cachedDecode } from "./token-cache";
 import type { User } from "@/lib/users/repo";
 import { ForbiddenError, UnauthenticatedError } from "@/lib/errors";
 
@@ -25,6 +26,7 @@ export async function currentSessionId(): Promise<string | null> {
     req: { cookies: Object.fromEntries(store.getAll().map((c) => [c.name, c.value])), headers: {} } as never,
     secret: authOptions.secret,
     secureCookie: secureCookies(),
+    decode: cachedDecode,
   });
   return typeof token?.sid === "string" ? token.sid : null;
 }

@@ -1,3 +1,4 @@
+import { createHash } from "node:crypto";
 import { contentHash } from "./hash";
 
 /** The result of re-hashing a version's stored content on read. */
@@ -23,7 +24,7 @@ export function checkIntegrity(
 ): Integrity {
   let computed: string;
   try {
-    computed = contentHash(rawContent);
+    computed = storedContentHash(rawContent);
   } catch (err) {
     return { ok: false, computed: "", recorded, problems: [`The stored content cannot be hashed: ${(err as Error).message}`] };
   }
@@ -45,4 +46,28 @@ export function checkIntegrity(
  */
 export function short(hash: string): string {
   return `${hash.slice(0, 12)}…`;
+}
+
+/** Canonical hashes of stored contents already hashed by this process, keyed by a SHA-256 of their JSON text. */
+const MAX_REMEMBERED = 500;
+const remembered = new Map<string, string>();
+
+/**
+ * contentHash of content read from the database (a JSON column), remembered per exact stored value: writing the
+ * canonical JSON (sorted keys, every number checked) is the costly part of a version page's hash check, while
+ * JSON.stringify of the same value is native and fast. Any change to the stored value changes its JSON text, so a
+ * changed content is never answered from memory: it is hashed afresh and a mismatch shows exactly as before. Only for
+ * parsed JSON (no undefined, NaN or functions, which JSON text cannot hold); at most MAX_REMEMBERED entries.
+ * @example storedContentHash({ a: 1 }) === contentHash({ a: 1 }) // true
+ */
+export function storedContentHash(rawContent: unknown): string {
+  const text = JSON.stringify(rawContent);
+  if (typeof text !== "string") return contentHash(rawContent);
+  const key = createHash("sha256").update(text, "utf8").digest("base64");
+  const hit = remembered.get(key);
+  if (hit !== undefined) return hit;
+  const computed = contentHash(rawContent);
+  if (remembered.size >= MAX_REMEMBERED) remembered.delete(remembered.keys().next().value as string);
+  remembered.set(key, computed);
+  return computed;
 }

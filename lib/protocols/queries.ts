@@ -48,7 +48,7 @@ export async function getVersionView(viewer: Viewer, protocolId: number, number:
     repo.listComments(db, version.id),
     repo.editorIds(db, version),
     repo.previousApproved(db, protocolId, number),
-    repo.latestVersion(db, protocolId),
+    repo.latestVersionRef(db, protocolId),
     namesByIds([version.authorId, version.lastEditorId]),
   ]);
   const policyVersion = { state: version.state, authorId: version.authorId, editorIds };

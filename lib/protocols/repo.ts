@@ -73,6 +73,15 @@ export async function latestVersion(conn: Conn, protocolId: number, opts: { forU
   return row ? toVersion(row) : null;
 }
 
+/**
+ * Id and number of a protocol's newest version, without its content (for pages that only compare ids).
+ * @example await latestVersionRef(db, 3) // { id: 12, number: 2 }
+ */
+export async function latestVersionRef(conn: Conn, protocolId: number): Promise<{ id: number; number: number } | null> {
+  const row = await conn("protocol_versions").where({ protocol_id: protocolId }).orderBy("number", "desc").first("id", "number");
+  return row ? { id: Number(row.id), number: Number(row.number) } : null;
+}
+
 /** Every version of a protocol, newest first. */
 export async function listVersions(conn: Conn, protocolId: number): Promise<ProtocolVersion[]> {
   return (await conn("protocol_versions").where({ protocol_id: protocolId }).orderBy("number", "desc")).map(toVersion);
