@@ -19,6 +19,9 @@ export const MAX_QUEUED_SHEETS = 64;
 
 const holder = globalThis as unknown as { sievewrightSheetPool?: Piscina };
 
+/** How much a PDF thread lowers its scheduling priority (nice increment; 19 is the lowest priority). */
+export const SHEET_THREAD_NICE = 10;
+
 /**
  * Threads for drawing PDFs: PDF_WORKERS, default 1 (on a small machine one core stays free for requests).
  * @example pdfWorkerCount() // 1
@@ -30,7 +33,9 @@ export function pdfWorkerCount(): number {
 function pool(): Piscina {
   if (holder.sievewrightSheetPool) return holder.sievewrightSheetPool;
   const threads = pdfWorkerCount();
-  holder.sievewrightSheetPool = new Piscina({ filename: workerBundleUrl("bench-sheet"), minThreads: 0, maxThreads: threads, maxQueue: MAX_QUEUED_SHEETS, idleTimeout: 60_000 });
+  // Drawn at a lower scheduling priority (nice +SHEET_THREAD_NICE, per thread on Linux), so requests that need the
+  // CPU while PDFs are being made are served first.
+  holder.sievewrightSheetPool = new Piscina({ filename: workerBundleUrl("bench-sheet"), minThreads: 0, maxThreads: threads, maxQueue: MAX_QUEUED_SHEETS, idleTimeout: 60_000, niceIncrement: SHEET_THREAD_NICE });
   return holder.sievewrightSheetPool;
 }
 

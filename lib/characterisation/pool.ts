@@ -19,28 +19,49 @@ import { FittingInputError } from "@/lib/fitting/errors";
 import { workerBundleUrl } from "@/lib/worker-bundles";
 import type { FitTask } from "./fit-worker";
 
+/** How much a fit thread lowers its scheduling priority (nice increment; 19 is the lowest priority). */
+export const FIT_THREAD_NICE = 10;
+
 /** Cells per task: small enough for smooth progress, large enough that messaging costs little. */
 export const CELLS_PER_TASK = 20;
 
-let pool: Piscina<FitTask, CellResult[]> | null = null;
+const holder = globalThis as unknown as { sievewrightFitPool?: Piscina<FitTask, CellResult[]> };
 
 /** Worker threads: one per core, at most 4, at least 1. */
 export function poolSize(): number {
   return Math.max(1, Math.min(4, os.availableParallelism()));
 }
 
+/**
+ * The process's one pool (kept on globalThis: Next loads this module once per route bundle, and the server's start
+ * hook in instrumentation.ts once more, so a module variable would give each its own threads). Its poolSize()
+ * threads start with it and stay (minThreads = maxThreads), each warmed up as it starts (fit-worker.ts), at a lower
+ * scheduling priority (nice +FIT_THREAD_NICE; per thread on Linux): a fit uses every idle core, but a page or API
+ * request that needs the CPU is served first.
+ */
 function getPool(): Piscina<FitTask, CellResult[]> {
-  if (!pool) {
-    pool = new Piscina({ filename: workerBundleUrl("cell-fit"), maxThreads: poolSize(), minThreads: 1, idleTimeout: 60_000 });
+  if (!holder.sievewrightFitPool) {
+    const threads = poolSize();
+    const pool = new Piscina<FitTask, CellResult[]>({ filename: workerBundleUrl("cell-fit"), maxThreads: threads, minThreads: threads, idleTimeout: 60_000, niceIncrement: FIT_THREAD_NICE });
     pool.on("error", (err) => console.error("cell-fit worker pool error", err));
+    holder.sievewrightFitPool = pool;
   }
-  return pool;
+  return holder.sievewrightFitPool;
+}
+
+/**
+ * Starts the pool's threads now (called once as the server starts, from instrumentation.ts), so the first fit a user
+ * asks for does not wait for threads to start and warm up; they load and warm up in the background.
+ * @example startFitPool();
+ */
+export function startFitPool(): void {
+  getPool();
 }
 
 /** Stops the pool's threads (tests and shutdown). */
 export async function closeFitPool(): Promise<void> {
-  const p = pool;
-  pool = null;
+  const p = holder.sievewrightFitPool;
+  holder.sievewrightFitPool = undefined;
   if (p) await p.close({ force: true });
 }
 
