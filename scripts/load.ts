@@ -1,11 +1,14 @@
 /**
  * `npm run load`: loopback load test of a running app (npm start) with autocannon, 16 connections for 30 s per
- * scenario: sign-in, sweeps (JSON, and Arrow when the build offers it), the protocol list, a version page, a stored
- * bench sheet, and a cheap request alone and while bench-sheet PDFs are being drawn. Prints p50/p95/p99 and errors,
- * and writes bench/load-results.md. Needs the app's database env (it makes a throwaway API token); start the app with
+ * scenario: sign-in, sweeps (JSON, and Arrow when the build offers it), the protocol list, a version page, the other
+ * read pages (home, review queue, bench list, a version's runs at the bench, the three library lists, each signed in as
+ * a role that may see it), a stored bench sheet, a cheap request alone and while bench-sheet PDFs are being drawn,
+ * and a 500-cell population fit (its wall time, and the cheap request while fits run back to back). Prints
+ * p50/p95/p99 and errors, and writes bench/load-results.md. Needs the app's database env (it makes a throwaway API token); start the app with
  * a high RATE_LIMIT_PER_MINUTE, or the per-token limiter answers 429 and those count as errors.
  * LOAD_SECONDS and LOAD_CONNECTIONS override the defaults; LOAD_ONLY=name,name picks scenarios; LOAD_SERVER describes the
- * server in the results (default "`next start`, one process"; e.g. "scripts/serve.ts, APP_WORKERS=2").
+ * server in the results (default "`next start`, one process"; e.g. "scripts/serve.ts, APP_WORKERS=2"); LOAD_NOTE adds a
+ * sentence about the conditions of the run to the results.
  */
 import "./load-env";
 import { execSync } from "node:child_process";
@@ -15,6 +18,7 @@ import os from "node:os";
 import { db } from "../db/knex";
 import { DEMO_PASSWORD } from "../db/seeds/01_users";
 import { buildParticle, PARTICLE_PRESETS } from "../lib/dielectric";
+import { BENCH_SETUP, benchCells } from "./bench-fits";
 import { createToken, revokeToken } from "../lib/tokens/service";
 import { findActiveUserByEmail } from "../lib/users/repo";
 
@@ -30,6 +34,10 @@ const ONLY = (process.env.LOAD_ONLY ?? "").split(",").filter(Boolean);
 const USER = process.env.LOAD_USER_EMAIL ?? "dana.dev@example.test";
 const ARROW = "application/vnd.apache.arrow.stream";
 const SERVER = process.env.LOAD_SERVER ?? "`next start`, one process";
+const NOTE = process.env.LOAD_NOTE ?? "";
+/** Demo accounts (db/seeds/01_users) for the pages a developer may not open. */
+const REVIEWER = "quinn.qa@example.test";
+const TECHNICIAN = "tomas.tech@example.test";
 
 /** One scenario's figures: latencies at the client in ms, responses per second, and errors (incl. non-2xx/304). */
 interface Figures {
@@ -71,7 +79,7 @@ function cookiesOf(res: Response): string[] {
   return res.headers.getSetCookie().map((c) => c.split(";")[0]);
 }
 
-async function signInCookie(): Promise<{ cookie: string; csrfCookie: string; csrfToken: string }> {
+async function signInCookie(email = USER): Promise<{ cookie: string; csrfCookie: string; csrfToken: string }> {
   const csrf = await fetch(`${BASE}/api/auth/csrf`);
   const { csrfToken } = (await csrf.json()) as { csrfToken: string };
   const csrfCookie = cookiesOf(csrf).join("; ");
@@ -79,10 +87,10 @@ async function signInCookie(): Promise<{ cookie: string; csrfCookie: string; csr
     method: "POST",
     redirect: "manual",
     headers: { "content-type": "application/x-www-form-urlencoded", cookie: csrfCookie },
-    body: new URLSearchParams({ csrfToken, email: USER, password: DEMO_PASSWORD, json: "true" }),
+    body: new URLSearchParams({ csrfToken, email, password: DEMO_PASSWORD, json: "true" }),
   });
   const session = cookiesOf(res).find((c) => c.includes("session-token"));
-  if (!session) throw new Error(`Sign-in as ${USER} gave no session cookie (status ${res.status}); is the demo seeded?`);
+  if (!session) throw new Error(`Sign-in as ${email} gave no session cookie (status ${res.status}); is the demo seeded?`);
   return { cookie: `${csrfCookie}; ${session}`, csrfCookie, csrfToken };
 }
 
@@ -100,11 +108,12 @@ async function main(): Promise<void> {
   const user = await findActiveUserByEmail(USER);
   if (!user) throw new Error(`No active user ${USER} in database ${process.env.DB_NAME}; seed it or set LOAD_USER_EMAIL.`);
   const token = await createToken(user, { label: `load ${new Date().toISOString()}` });
-  const approved = await db("protocol_versions as v").join("protocols as p", "p.id", "v.protocol_id").where("v.state", "approved").orderBy("v.id").first("p.id as pid", "v.number as n");
+  const approved = await db("protocol_versions as v").join("protocols as p", "p.id", "v.protocol_id").where("v.state", "approved").orderBy("v.id").first("p.id as pid", "v.number as n", "v.id as vid");
   const other = await db("protocol_versions as v").join("protocols as p", "p.id", "v.protocol_id").whereNot("v.state", "approved").orderBy("v.id").first("p.id as pid", "v.number as n");
   if (!approved || !other) throw new Error("The load test needs an approved and a not-approved protocol version (the demo seed has both).");
   const results: Figures[] = [];
   const notes: string[] = [];
+  let fitFigures: { first: number; warm: number[]; during: number[] } | null = null;
   try {
     const { cookie, csrfCookie, csrfToken } = await signInCookie();
     const bearer = { authorization: `Bearer ${token.secret}`, "content-type": "application/json" };
@@ -129,6 +138,17 @@ async function main(): Promise<void> {
     }
     if (want("list")) results.push({ ...(await hammer("protocol list", "GET /protocols (signed-in page)", { url: `${BASE}/protocols`, headers: { cookie } })), target: "p95 ≤ 300 ms" });
     if (want("version")) results.push({ ...(await hammer("version page", `GET /protocols/${approved.pid}/versions/${approved.n}`, { url: `${BASE}/protocols/${approved.pid}/versions/${approved.n}`, headers: { cookie } })), target: "p95 ≤ 300 ms" });
+    const page = async (name: string, path: string, who: string, pageCookie: string) =>
+      results.push({ ...(await hammer(name, `GET ${path} (as ${who})`, { url: `${BASE}${path}`, headers: { cookie: pageCookie } })), target: "p95 ≤ 300 ms" });
+    if (want("pages")) {
+      const reviewer = (await signInCookie(REVIEWER)).cookie;
+      const technician = (await signInCookie(TECHNICIAN)).cookie;
+      await page("home", "/home", USER, cookie);
+      await page("review queue", "/review", REVIEWER, reviewer);
+      await page("bench list", "/bench", TECHNICIAN, technician);
+      await page("runs at the bench", `/bench/${approved.vid}`, TECHNICIAN, technician);
+      for (const kind of ["populations", "buffers", "devices"]) await page(`library: ${kind}`, `/library/${kind}`, USER, cookie);
+    }
     if (want("sheet")) results.push({ ...(await hammer("stored bench sheet", `GET …/versions/${approved.n}/bench-sheet?paper=a4&volumeMl=250 (stored PDF)`, { url: sheetUrl, headers: { cookie } })), target: "p95 ≤ 300 ms" });
     if (want("cheap")) {
       const cheap = { url: `${BASE}/api/auth/session`, headers: { cookie } };
@@ -144,6 +164,38 @@ async function main(): Promise<void> {
       results.push({ ...during, target: `p95 within ±20 % of alone (${(alone.p95 * 0.8).toFixed(0)}–${(alone.p95 * 1.2).toFixed(0)} ms)` });
       notes.push(`While the cheap request was measured, 4 other clients received ${pdfs} draft PDFs drawn on demand (${(pdfs / SECONDS).toFixed(1)}/s).`);
     }
+    if (want("fit")) {
+      const fitBody = JSON.stringify({ ...BENCH_SETUP, cells: benchCells() });
+      const fitOnce = async (): Promise<number> => {
+        const t0 = performance.now();
+        const res = await fetch(`${BASE}/api/v1/fits/cells`, { method: "POST", headers: bearer, body: fitBody });
+        const out = (await res.json()) as { includedCount?: number };
+        if (res.status !== 200 || !out.includedCount) throw new Error(`The 500-cell fit answered ${res.status}`);
+        return performance.now() - t0;
+      };
+      const first = await fitOnce();
+      const walls: number[] = [];
+      for (let i = 0; i < 3; i++) walls.push(await fitOnce());
+      const cheap = { url: `${BASE}/api/auth/session`, headers: { cookie } };
+      let fitting = true;
+      const during: number[] = [];
+      const loop = (async () => {
+        while (fitting) during.push(await fitOnce());
+      })();
+      const cheapDuring = await hammer("cheap request during fits", "GET /api/auth/session while one client runs 500-cell fits back to back", cheap);
+      fitting = false;
+      await loop;
+      const alone = results.find((r) => r.name === "cheap request alone");
+      results.push({ ...cheapDuring, target: alone ? `p95 within ±20 % of alone (${(alone.p95 * 0.8).toFixed(0)}–${(alone.p95 * 1.2).toFixed(0)} ms)` : "—" });
+      const sorted = [...walls].sort((a, b) => a - b);
+      const ds = [...during].sort((a, b) => a - b);
+      fitFigures = { first, warm: sorted, during: ds };
+      notes.push(
+        `500-cell fit (POST /api/v1/fits/cells, 500 cells × 20 frequencies, 3 parameters each; target ≤ 10 s): first request of this run ${(first / 1000).toFixed(2)} s, ` +
+          `then ${sorted.map((w) => (w / 1000).toFixed(2)).join(", ")} s; while the cheap request was measured, ${ds.length} fits ran back to back in ` +
+          `${ds.length ? `${(ds[0] / 1000).toFixed(2)}–${(ds[ds.length - 1] / 1000).toFixed(2)} s` : "—"} each (wall time at the client, JSON body and answer included).`,
+      );
+    }
   } finally {
     await revokeToken(user, token.id);
     await db.destroy();
@@ -156,9 +208,10 @@ async function main(): Promise<void> {
     `Written by scripts/load.ts on ${new Date().toISOString().slice(0, 16).replace("T", " ")} UTC, commit ${commit()}, against ${BASE}`,
     `(${SERVER}), autocannon on loopback, ${CONNECTIONS} connections for ${SECONDS} s per scenario unless noted.`,
     `Machine: ${machine}. Load generator and server share it. 1-minute load average ${loadBefore.toFixed(1)} at the start and`,
-    `${loadAfter.toFixed(1)} at the end: **the machine was shared with other work during this run, so every figure is`,
-    "inflated by CPU contention and is an upper bound for a quiet machine.** Latency is at the client, queueing included.",
+    `${loadAfter.toFixed(1)} at the end${Math.max(loadBefore, loadAfter) > os.cpus().length ? ": **the machine was shared with other work during this run, so every figure is inflated by CPU contention and is an upper bound for a quiet machine.**" : "."}`,
+    "Latency is at the client, queueing included.",
     "Errors count connection errors, time-outs and any status other than 2xx/3xx.",
+    ...(NOTE ? ["", NOTE] : []),
     "",
     "| scenario | request | responses | req/s | p50 (ms) | p95 (ms) | p99 (ms) | errors | statuses | target |",
     "|---|---|---|---|---|---|---|---|---|---|",
@@ -169,6 +222,7 @@ async function main(): Promise<void> {
   ].join("\n");
   mkdirSync("bench", { recursive: true });
   writeFileSync("bench/load-results.md", md);
+  if (fitFigures) console.log(`fit: first ${fitFigures.first.toFixed(0)} ms, warm ${fitFigures.warm.map((w) => w.toFixed(0)).join(", ")} ms, during ${fitFigures.during.map((w) => w.toFixed(0)).join(", ")} ms`);
   console.log("wrote bench/load-results.md");
 }
 
