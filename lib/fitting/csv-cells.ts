@@ -1,5 +1,6 @@
 import type { AcceptedUnit, ColumnRole } from "./csv-columns";
 import { sig } from "@/lib/units/number";
+import { WATER_TEMPERATURE_RANGE } from "@/lib/dielectric/medium";
 
 export interface PlausibleRange {
   /** SI limits (S/m, Hz, °C, m). */
@@ -12,7 +13,7 @@ export interface PlausibleRange {
 export const PLAUSIBLE_RANGES: Readonly<Record<"conductivity" | "crossoverFrequency" | "temperature" | "radius", PlausibleRange>> = {
   conductivity: { min: 1e-5, max: 5, why: "from near-pure water to above physiological saline" },
   crossoverFrequency: { min: 1e3, max: 1e9, why: "the band searched for crossovers, 1 kHz to 1 GHz" },
-  temperature: { min: 0, max: 60, why: "liquid aqueous media on a bench or chip" },
+  temperature: { ...WATER_TEMPERATURE_RANGE, why: "liquid aqueous media on a bench or chip (the water property fits' range)" },
   radius: { min: 1e-7, max: 5e-4, why: "from small bacteria to large oocytes" },
 };
 

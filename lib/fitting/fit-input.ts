@@ -2,6 +2,12 @@ import type { FieldIssue } from "@/lib/errors";
 import { FittingInputError } from "./errors";
 import type { CrossoverModelUsed, CrossoverPoint, FitOptions } from "./fit-types";
 import { SHELL_CROSSOVER_DEFAULTS } from "./shell-crossover";
+import { populationField } from "@/lib/populations/fields";
+import { rangeInWords } from "@/lib/units/lab-fields";
+
+/** Bounds a crossover fit accepts, from the population field table. */
+const CYTOPLASM_PERMITTIVITY = populationField("interior.permittivity")!;
+const MEMBRANE_THICKNESS = populationField("membrane.thickness")!;
 
 /** A validated point with its radius resolved; index is its position in the caller's array. */
 export interface ResolvedPoint {
@@ -82,13 +88,13 @@ function resolveModel(options: FitOptions, issues: FieldIssue[]): CrossoverModel
   if (kind !== "shell") return { kind: "closed-form", cytoplasm: null, membraneThickness: null, mediumPermittivity: null, defaultsUsed: [] };
   const d = SHELL_CROSSOVER_DEFAULTS;
   const cyt = options.cytoplasm ?? d.cytoplasm;
-  if (!inRange(cyt?.permittivity, 1, 200))
-    issues.push({ path: "cytoplasm.permittivity", message: `cytoplasm relative permittivity must be between 1 and 200; got ${describe(cyt?.permittivity)}` });
+  if (!inRange(cyt?.permittivity, CYTOPLASM_PERMITTIVITY.min, CYTOPLASM_PERMITTIVITY.max))
+    issues.push({ path: "cytoplasm.permittivity", message: `cytoplasm relative permittivity must be between ${CYTOPLASM_PERMITTIVITY.min} and ${CYTOPLASM_PERMITTIVITY.max}; got ${describe(cyt?.permittivity)}` });
   if (!inRange(cyt?.conductivity, 1e-4, 20))
     issues.push({ path: "cytoplasm.conductivity", message: `cytoplasm conductivity must be between 0.0001 and 20 S/m; got ${describe(cyt?.conductivity)}` });
   const thickness = options.membraneThickness ?? d.membraneThickness;
-  if (!inRange(thickness, 1e-9, 1e-7))
-    issues.push({ path: "membraneThickness", message: `membrane thickness must be between 1e-9 and 1e-7 m (1–100 nm); got ${describe(thickness)}` });
+  if (!inRange(thickness, MEMBRANE_THICKNESS.min, MEMBRANE_THICKNESS.max))
+    issues.push({ path: "membraneThickness", message: `membrane thickness must be between ${MEMBRANE_THICKNESS.min} and ${MEMBRANE_THICKNESS.max} m (${rangeInWords(MEMBRANE_THICKNESS)}); got ${describe(thickness)}` });
   const em = options.mediumPermittivity ?? d.mediumPermittivity;
   if (!inRange(em, 1, 200))
     issues.push({ path: "mediumPermittivity", message: `medium relative permittivity must be between 1 and 200; got ${describe(em)}` });

@@ -12,6 +12,11 @@ import { cellSpectrumRequestSchema, type CellSpectrumRequest, type FitParameterN
 import { FittingInputError } from "./errors";
 import { formatPercentFixed } from "@/lib/units/format";
 import { decimals } from "@/lib/units/number";
+import { populationField } from "@/lib/populations/fields";
+import { siRangeText } from "@/lib/units/quantity-field";
+
+/** A cell radius as the population field table bounds it. */
+const RADIUS = populationField("radius")!;
 
 /** Most cells one population fit takes. */
 export const MAX_CELLS = 2000;
@@ -21,7 +26,7 @@ export const OUTLIER_Z = 3.5;
 /** One measured cell: its id, radius (m) and spectrum. */
 export const cellInputSchema = z.object({
   id: z.string().trim().min(1, { error: "cell id must not be empty" }).max(80, { error: "cell id: at most 80 characters" }),
-  radius: quantity({ what: "cell radius (m)", range: "between 0.1 µm and 100 µm (1e-7 to 1e-4 m)", min: 1e-7, max: 1e-4 }),
+  radius: quantity({ what: "cell radius (m)", range: siRangeText(RADIUS), min: RADIUS.min, max: RADIUS.max }),
   points: cellSpectrumRequestSchema.shape.points,
 });
 export type CellInput = z.infer<typeof cellInputSchema>;

@@ -4,6 +4,11 @@
  */
 import { z } from "zod";
 import { describeValue, isMembrane, particleSchema, quantity } from "@/lib/dielectric";
+import { populationField } from "@/lib/populations/fields";
+import { siRangeText } from "@/lib/units/quantity-field";
+
+/** A cell radius as the population field table bounds it. */
+const RADIUS = populationField("radius")!;
 
 /**
  * What the measured values are:
@@ -46,7 +51,7 @@ export const cellSpectrumRequestSchema = z
       .array(point, { error: (iss) => `points must be a list of { frequency, value } (got ${describeValue(iss.input)})` })
       .min(2, { error: "points: a spectrum needs at least 2 frequencies" })
       .max(MAX_SPECTRUM_POINTS, { error: `points: at most ${MAX_SPECTRUM_POINTS} frequencies per cell` }),
-    radius: quantity({ what: "cell radius (m)", range: "between 0.1 µm and 100 µm (1e-7 to 1e-4 m)", min: 1e-7, max: 1e-4 }),
+    radius: quantity({ what: "cell radius (m)", range: siRangeText(RADIUS), min: RADIUS.min, max: RADIUS.max }),
     medium: z.object({
       conductivity: quantity({ what: "medium conductivity (S/m)", range: "between 1e-6 and 20 S/m", min: 1e-6, max: 20 }),
       permittivity: quantity({ what: "medium relative permittivity", range: "between 1 and 200", min: 1, max: 200 }),

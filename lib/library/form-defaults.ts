@@ -4,6 +4,8 @@ import type { ContentOf, LibraryKind } from "./kinds";
 import { populationContentToForm, type PopulationContent, type PopulationForm } from "./populations/content";
 import type { ItemVersion } from "./mapper";
 import { defaultPopulationSpec } from "@/lib/populations/spec";
+import { BUFFER_FIELDS as B } from "@/lib/buffers/fields";
+import { DEVICE_FIELDS as D } from "@/lib/devices/fields";
 
 /** Form values of each kind. */
 export interface FormOf {
@@ -12,7 +14,7 @@ export interface FormOf {
   devices: DeviceForm;
 }
 
-/** Starting content for a new item: an editable, typical example (values from memory, to be replaced). */
+/** Starting content for a new item: an editable, typical example (the field tables' defaults, to be replaced). */
 export const BLANK: { [K in LibraryKind]: ContentOf[K] } = {
   populations: {
     name: "",
@@ -21,8 +23,8 @@ export const BLANK: { [K in LibraryKind]: ContentOf[K] } = {
     description: "",
     spec: defaultPopulationSpec(),
   } satisfies PopulationContent,
-  buffers: { name: "", organisation: "", recipe: { sucrosePercentWV: 8.5, glucosePercentWV: 0.3, additions: [{ kind: "PBS1x", amountPerLitre: 6.5 }] }, targetConductivity25: 0.01, tolerance: 0.1, measured: null, osmolality: null, maxMinutesInBuffer: 45, notes: "" } satisfies BufferContent,
-  devices: { name: "", organisation: "", geometry: { kind: "interdigitated", electrodeWidth: 20e-6, electrodeGap: 20e-6, channelHeight: 50e-6 }, generator: { maxVoltageVpp: 20, minFrequency: 1e3, maxFrequency: 20e6 }, notes: "" } satisfies DeviceContent,
+  buffers: { name: "", organisation: "", recipe: { sucrosePercentWV: B.sucrosePercentWV.default, glucosePercentWV: B.glucosePercentWV.default, additions: [{ kind: "PBS1x", amountPerLitre: 6.5 }] }, targetConductivity25: B.conductivity.default, tolerance: B.tolerance.default, measured: null, osmolality: null, maxMinutesInBuffer: B.maxMinutesInBuffer.default, notes: "" } satisfies BufferContent,
+  devices: { name: "", organisation: "", geometry: { kind: "interdigitated", electrodeWidth: D.electrodeWidth.default, electrodeGap: D.electrodeGap.default, channelHeight: D.channelHeight.default }, generator: { maxVoltageVpp: D.maxVoltageVpp.default, minFrequency: D.minFrequency.default, maxFrequency: D.maxFrequency.default }, notes: "" } satisfies DeviceContent,
 };
 
 /**

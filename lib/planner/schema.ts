@@ -10,6 +10,10 @@ import { describeValue, LIMITS, mediumConductivitySchema, quantity } from "@/lib
 import { mediumOsmolalitySchema, operatingTemperatureSchema } from "@/lib/buffers/schema";
 import { plannerDeviceChecks, plannerDeviceShape } from "@/lib/devices/schema";
 import { populationSpecSchema, type PopulationSpec, type SpreadParam } from "@/lib/populations/spec";
+import { BUFFER_FIELDS } from "@/lib/buffers/fields";
+
+/** The osmolality limits bound the medium osmolality, so they take its row of the buffer field table (osmol/kg). */
+const OSMOLALITY = BUFFER_FIELDS.mediumOsmolality;
 
 const populationSchema = z.object({
   id: z.string({ error: "population id must be text" }).min(1, { error: "population id must not be empty" }).max(200, { error: "population id must be at most 200 characters" }),
@@ -94,8 +98,8 @@ export const windowsRequestSchema = z
         maxElectrothermalRatio: quantity({ what: "electrothermal/DEP speed limit", range: "greater than zero and at most 1000", min: 0, max: 1000, exclusiveMin: true }).optional(),
         maxTransmembranePotential: quantity({ what: "transmembrane potential limit (V)", range: "greater than zero and at most 10 V", min: 0, max: 10, exclusiveMin: true }).optional(),
         maxAcElectroosmosis: z.enum(["unlikely", "possible", "likely"]).optional(),
-        osmolalityMin: quantity({ what: "lowest osmolality (osmol/kg)", range: "between 0 and 2", min: 0, max: 2 }).optional(),
-        osmolalityMax: quantity({ what: "highest osmolality (osmol/kg)", range: "between 0 and 2", min: 0, max: 2 }).optional(),
+        osmolalityMin: quantity({ what: "lowest osmolality (osmol/kg)", range: `between ${OSMOLALITY.min} and ${OSMOLALITY.max}`, min: OSMOLALITY.min, max: OSMOLALITY.max }).optional(),
+        osmolalityMax: quantity({ what: "highest osmolality (osmol/kg)", range: `between ${OSMOLALITY.min} and ${OSMOLALITY.max}`, min: OSMOLALITY.min, max: OSMOLALITY.max }).optional(),
         minRecovery: quantity({ what: "minimum recovery", range: "between 0 and 1", min: 0, max: 1 }).optional(),
         minPurity: quantity({ what: "minimum purity", range: "between 0 and 1", min: 0, max: 1 }).optional(),
       })

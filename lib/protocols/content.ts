@@ -2,6 +2,7 @@ import { z } from "zod";
 import { protocolBufferSchema } from "@/lib/buffers/schema";
 import { protocolDeviceSchema } from "@/lib/devices/schema";
 import { populationSpecSchema } from "@/lib/populations/spec";
+import { DEVICE_FIELDS } from "@/lib/devices/fields";
 
 export { protocolRecipeSchema as bufferRecipeSchema, recipeAdditionSchema } from "@/lib/buffers/schema";
 
@@ -38,7 +39,7 @@ export const selectionSchema = z.object({
   voltageVpp: z.number().positive(),
   waveform: z.enum(["sine"]).default("sine"),
   flowRateUlPerMin: z.number().min(0).nullable(),
-  temperatureC: z.number().min(0).max(60),
+  temperatureC: z.number().min(DEVICE_FIELDS.operatingTemperatureC.min).max(DEVICE_FIELDS.operatingTemperatureC.max),
   predicted: z.object({ recovery: z.number().min(0).max(1), purity: z.number().min(0).max(1), deltaT: z.number() }),
   /** What each population does there, e.g. "positive DEP: held at the electrode edges". */
   behaviour: z.object({ target: z.string(), other: z.string() }),

@@ -2,6 +2,9 @@ import { z } from "zod";
 import { fromSI, toSI } from "@/lib/units/lab";
 import { tidy } from "@/lib/units/number";
 import { formatFrequency, frequencyUnitFor, type FrequencyUnit } from "@/lib/units/format";
+import { labRange } from "@/lib/units/lab-fields";
+import { BUFFER_FIELDS } from "@/lib/buffers/fields";
+import { DEVICE_FIELDS } from "@/lib/devices/fields";
 
 /**
  * The run record, shared by the web form (react-hook-form + zodResolver), the public API (POST /api/v1/runs) and the
@@ -14,8 +17,8 @@ import { formatFrequency, frequencyUnitFor, type FrequencyUnit } from "@/lib/uni
 export const RUN_LIMITS = {
   conductivityUsPerCm: { min: 1, max: 20000, unit: "µS/cm", label: "Measured conductivity" },
   measuredAtC: { min: 5, max: 45, unit: "°C", label: "Temperature of the conductivity reading" },
-  osmolalityMOsmPerKg: { min: 10, max: 2000, unit: "mOsm/kg", label: "Measured osmolality" },
-  operatingTemperatureC: { min: 0, max: 60, unit: "°C", label: "Operating temperature" },
+  osmolalityMOsmPerKg: { ...labRange(BUFFER_FIELDS.osmolality), unit: "mOsm/kg", label: "Measured osmolality" },
+  operatingTemperatureC: { min: DEVICE_FIELDS.operatingTemperatureC.min, max: DEVICE_FIELDS.operatingTemperatureC.max, unit: "°C", label: "Operating temperature" },
   frequencyHz: { min: 100, max: 5e8, unit: "Hz", label: "Frequency" },
   frequencyKHz: { min: 0.1, max: 500000, unit: "kHz", label: "Frequency" },
   voltageVpp: { min: 0.1, max: 200, unit: "Vpp", label: "Voltage" },

@@ -1,5 +1,10 @@
 import { z } from "zod";
 import { defaultConstraints, defaultSeparation } from "@/lib/planner/constraints";
+import { BUFFER_FIELDS } from "@/lib/buffers/fields";
+import { labRange } from "@/lib/units/lab-fields";
+
+/** The osmolality limits in mOsm/kg, bounded like the medium osmolality (buffer field table). */
+const OSMOLALITY_MOSM = labRange(BUFFER_FIELDS.mediumOsmolality);
 
 /** Sort designs the planner models, in the words the limits step shows. */
 export const SORT_DESIGNS = {
@@ -75,8 +80,8 @@ export const LIMIT_FIELDS: LimitField[] = [
   { key: "slowCellPercent", label: "Slow cells allowed to fall short of the target speed", unit: "%", min: 0, max: 50, step: 1, reason: defaultSeparation.slowCellQuantile.reason },
   { key: "minRecoveryPercent", label: "Lowest acceptable recovery of the target", unit: "%", min: 0, max: 100, step: 1, reason: defaultConstraints.minRecovery.reason },
   { key: "minPurityPercent", label: "Lowest acceptable purity of the collected fraction", unit: "%", min: 0, max: 100, step: 1, reason: defaultConstraints.minPurity.reason },
-  { key: "osmolalityMin", label: "Lowest acceptable osmolality", unit: "mOsm/kg", min: 0, max: 2000, step: 5, reason: defaultConstraints.osmolalityMin.reason },
-  { key: "osmolalityMax", label: "Highest acceptable osmolality", unit: "mOsm/kg", min: 0, max: 2000, step: 5, reason: defaultConstraints.osmolalityMax.reason },
+  { key: "osmolalityMin", label: "Lowest acceptable osmolality", unit: "mOsm/kg", ...OSMOLALITY_MOSM, step: 5, reason: defaultConstraints.osmolalityMin.reason },
+  { key: "osmolalityMax", label: "Highest acceptable osmolality", unit: "mOsm/kg", ...OSMOLALITY_MOSM, step: 5, reason: defaultConstraints.osmolalityMax.reason },
   { key: "targetPercent", label: "Target share of the input mix", unit: "%", min: 0, max: 99, above: true, step: 1, reason: INPUT_MIX_REASON },
 ];
 
