@@ -1,23 +1,17 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
-import { useRouter } from "next/navigation";
-import { useState } from "react";
-import { useForm } from "react-hook-form";
 import { BenchFields, BufferNumber, MeterReadingFields, RecipeFields, RecipePrediction } from "@/components/buffers/buffer-editor";
 import { predictRecipe } from "@/lib/buffers/recipe";
-import { saveLibraryItemAction } from "@/lib/library/actions";
 import { bufferFormSchema, type BufferForm as FormValues } from "@/lib/library/buffers/content";
 import { formatIn, toSI } from "@/lib/units/lab";
 import { SubmitRow } from "./form-bits";
-import { applyServerErrors } from "./save-result";
+import { useItemForm } from "./use-item-form";
 import { VersionMetaFields, type EditingInfo } from "./version-meta-fields";
 
 /** Create or edit a buffer in lab units with the shared buffer editor, and the engine's prediction for the recipe as you type. */
 export function BufferForm({ defaults, editing }: { defaults: FormValues; editing: EditingInfo | null }) {
-  const router = useRouter();
-  const [status, setStatus] = useState<{ ok: boolean; text: string } | null>(null);
-  const { register, control, handleSubmit, watch, setError, formState: { errors, isSubmitting } } = useForm<FormValues>({ resolver: zodResolver(bufferFormSchema), defaultValues: defaults });
+  const { form, status, submit } = useItemForm<FormValues>("buffers", bufferFormSchema, defaults, editing);
+  const { register, control, watch, formState: { errors, isSubmitting } } = form;
   const v = watch();
   const target = typeof v.targetConductivity === "number" && Number.isFinite(v.targetConductivity) ? toSI("mS_m", v.targetConductivity) : null;
   const prediction = v.useRecipe
@@ -28,17 +22,9 @@ export function BufferForm({ defaults, editing }: { defaults: FormValues; editin
       })
     : null;
 
-  async function onSubmit(values: FormValues) {
-    const result = await saveLibraryItemAction("buffers", editing ? { id: editing.id, baseVersion: editing.version } : null, values);
-    setStatus({ ok: result.ok, text: applyServerErrors(result, setError) });
-    if (result.ok && result.data) {
-      router.push(`/library/buffers/${result.data.id}`);
-      router.refresh();
-    }
-  }
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="space-y-5">
+    <form onSubmit={submit} noValidate className="space-y-5">
       <fieldset className="card grid gap-4 sm:grid-cols-2">
         <legend className="px-1 text-base font-semibold">Buffer</legend>
         <label className="field">

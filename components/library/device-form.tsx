@@ -1,34 +1,20 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
-import { useRouter } from "next/navigation";
-import { useState } from "react";
-import { useForm } from "react-hook-form";
 import { DeviceEditor } from "@/components/devices/device-editor";
-import { saveLibraryItemAction } from "@/lib/library/actions";
 import { deviceFormSchema, type DeviceForm as FormValues } from "@/lib/library/devices/content";
 import { SubmitRow } from "./form-bits";
-import { applyServerErrors } from "./save-result";
+import { useItemForm } from "./use-item-form";
 import { VersionMetaFields, type EditingInfo } from "./version-meta-fields";
 
 /** Create or edit a device profile in lab units with the shared device editor. */
 export function DeviceForm({ defaults, editing }: { defaults: FormValues; editing: EditingInfo | null }) {
-  const router = useRouter();
-  const [status, setStatus] = useState<{ ok: boolean; text: string } | null>(null);
-  const { register, handleSubmit, watch, setError, formState: { errors, isSubmitting } } = useForm<FormValues>({ resolver: zodResolver(deviceFormSchema), defaultValues: defaults });
+  const { form, status, submit } = useItemForm<FormValues>("devices", deviceFormSchema, defaults, editing);
+  const { register, watch, formState: { errors, isSubmitting } } = form;
   const v = watch();
 
-  async function onSubmit(values: FormValues) {
-    const result = await saveLibraryItemAction("devices", editing ? { id: editing.id, baseVersion: editing.version } : null, values);
-    setStatus({ ok: result.ok, text: applyServerErrors(result, setError) });
-    if (result.ok && result.data) {
-      router.push(`/library/devices/${result.data.id}`);
-      router.refresh();
-    }
-  }
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="space-y-5">
+    <form onSubmit={submit} noValidate className="space-y-5">
       <fieldset className="card grid gap-4 sm:grid-cols-2">
         <legend className="px-1 text-base font-semibold">Device profile</legend>
         <label className="field">

@@ -1,36 +1,20 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
-import { useRouter } from "next/navigation";
-import { useState } from "react";
-import { useForm } from "react-hook-form";
 import { PopulationEditor } from "@/components/populations/population-editor";
-import { saveLibraryItemAction } from "@/lib/library/actions";
 import { POPULATION_KIND_LABELS, POPULATION_KINDS, populationFormSchema, type PopulationForm as FormValues } from "@/lib/library/populations/content";
 import type { ShellModel } from "@/lib/populations/fields";
-import { applyServerErrors } from "./save-result";
+import { SubmitRow } from "./form-bits";
+import { useItemForm } from "./use-item-form";
 import { VersionMetaFields, type EditingInfo } from "./version-meta-fields";
-import { useHydrated } from "@/components/forms/use-hydrated";
 
 /** Create or edit a population in lab units; the same schema checks the values here and on the server. */
 export function PopulationForm({ defaults, editing }: { defaults: FormValues; editing: EditingInfo | null }) {
-  const hydrated = useHydrated();
-  const router = useRouter();
-  const [status, setStatus] = useState<{ ok: boolean; text: string } | null>(null);
-  const { register, handleSubmit, watch, setError, formState: { errors, isSubmitting } } = useForm<FormValues>({ resolver: zodResolver(populationFormSchema), defaultValues: defaults });
+  const { form, status, submit } = useItemForm<FormValues>("populations", populationFormSchema, defaults, editing);
+  const { register, watch, formState: { errors, isSubmitting } } = form;
   const model = watch("model") as ShellModel;
 
-  async function onSubmit(values: FormValues) {
-    const result = await saveLibraryItemAction("populations", editing ? { id: editing.id, baseVersion: editing.version } : null, values);
-    setStatus({ ok: result.ok, text: applyServerErrors(result, setError) });
-    if (result.ok && result.data) {
-      router.push(`/library/populations/${result.data.id}`);
-      router.refresh();
-    }
-  }
-
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="space-y-5">
+    <form onSubmit={submit} noValidate className="space-y-5">
       <fieldset className="card grid gap-4 sm:grid-cols-2">
         <legend className="px-1 text-base font-semibold">Population</legend>
         <label className="field">
@@ -61,11 +45,7 @@ export function PopulationForm({ defaults, editing }: { defaults: FormValues; ed
         <PopulationEditor prefix="" idPrefix="population" model={model} register={register} errors={errors} />
       </fieldset>
       <VersionMetaFields register={register as never} errors={errors} editing={editing} />
-      <div className="flex items-center gap-3">
-        <button className="btn" type="submit" disabled={!hydrated || isSubmitting}>{editing ? "Save" : "Create population"}</button>
-        {status && <p className={`text-sm ${status.ok ? "text-moss-dark" : "text-danger"}`} role="status">{status.text}</p>}
-        {!status && Object.keys(errors).length > 0 && <p className="text-sm text-danger" role="status">Some fields need attention; see the messages next to them.</p>}
-      </div>
+      <SubmitRow label={editing ? "Save" : "Create population"} busy={isSubmitting} status={status} hasErrors={Object.keys(errors).length > 0} />
     </form>
   );
 }
