@@ -42,7 +42,7 @@ export const AUTH_SETTINGS = z.object({
  * Variables whose empty value means something of its own, so it is kept rather than read as unset: an empty
  * password (an account without one), an empty S3_ENDPOINT (the provider's default endpoint for the region).
  */
-const EMPTY_KEPT = new Set(["DB_PASSWORD", "DB_MIGRATOR_PASSWORD", "S3_ENDPOINT", "S3_ACCESS_KEY_ID", "S3_SECRET_ACCESS_KEY"]);
+const EMPTY_KEPT = new Set(["DB_PASSWORD", "DB_MIGRATOR_PASSWORD", "DB_BACKUP_PASSWORD", "S3_ENDPOINT", "S3_ACCESS_KEY_ID", "S3_SECRET_ACCESS_KEY"]);
 
 export const ENV_SCHEMA = z.object({
   APP_BASE_URL: httpUrl("http://127.0.0.1:3000"),
@@ -82,6 +82,11 @@ export const ENV_SCHEMA = z.object({
   S3_FORCE_PATH_STYLE: flag(true),
   S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
   S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
+  /** Backups: an account of their own (read triggers, recreate tables); unset → the migrator account. */
+  DB_BACKUP_USER: z.string().optional(),
+  DB_BACKUP_PASSWORD: z.string().optional(),
+  /** "1" logs each page's step timings after its response (lib/http/page-timing.ts). */
+  SERVER_TIMING_LOG: flag(false),
   ...AUTH_SETTINGS.shape,
 });
 

@@ -7,7 +7,7 @@ import { BUFFER_FORM_FIELDS, type BufferFormKey } from "@/lib/buffers/form";
 import { ADDITION_KINDS, additionUnitLabel, amountUnit, type AdditionKind, type RecipeValues } from "@/lib/buffers/recipe";
 import type { BufferResult } from "@/lib/dielectric";
 import { formatConductivity, formatOsmolality, formatPercentFixed, formatPlain, formatTemperature } from "@/lib/units/format";
-import { formatIn } from "@/lib/units/lab";
+import { formatIn, toSI } from "@/lib/units/lab";
 import { labelWithUnit, rangeInWords, readNumber } from "@/lib/units/lab-fields";
 
 /**
@@ -89,7 +89,7 @@ export function RecipePrediction({ result, error, temperatureC, target, finalVol
         {temperatureC !== undefined && <><dt className="text-ink-muted">At {formatTemperature(temperatureC)}</dt><dd>{formatConductivity(result.conductivity, { meter: true })}</dd></>}
         <dt className="text-ink-muted">Osmolality</dt><dd data-testid="recipe-osmolality">{formatOsmolality(result.osmolality)}</dd>
         <dt className="text-ink-muted">Viscosity</dt><dd>{formatPlain(result.relativeViscosity)} × water</dd>
-        {finalVolume && <><dt className="text-ink-muted">Final volume</dt><dd>{formatIn("mL", result.finalVolumeL / 1000)}</dd></>}
+        {finalVolume && <><dt className="text-ink-muted">Final volume</dt><dd>{formatIn("mL", toSI("L", result.finalVolumeL))}</dd></>}
         {off !== null && <><dt className="text-ink-muted">From the target</dt><dd className={Math.abs(off) > 0.1 ? "text-caution" : "text-moss-dark"}>{formatPercentFixed(off, 0)}</dd></>}
       </dl>
       {result.warnings.map((w) => <p key={w.code} className="notice">{w.message}</p>)}

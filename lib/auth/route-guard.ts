@@ -1,4 +1,5 @@
 import { NextResponse, type NextRequest } from "next/server";
+import { configuredUrls } from "@/lib/env";
 import { HOME_PATH } from "./redirect";
 
 /**
@@ -26,15 +27,9 @@ function nextAuthAccepts(value: string, base: string): boolean {
  * @example appOrigin({ NEXTAUTH_URL: "https://sw.lab.example/" }, "http://localhost:3000") // "https://sw.lab.example"
  */
 export function appOrigin(env: Record<string, string | undefined>, requestOrigin: string): string {
-  for (const value of [env.NEXTAUTH_URL, env.APP_BASE_URL]) {
-    if (!value) continue;
-    try {
-      return new URL(value).origin;
-    } catch {
-      // an unparsable setting is skipped; the next one (or the request's origin) is used
-    }
-  }
-  return requestOrigin;
+  const urls = configuredUrls(env);
+  const value = urls.NEXTAUTH_URL ?? urls.APP_BASE_URL;
+  return value ? new URL(value).origin : requestOrigin;
 }
 
 /** The request's origin as the browser wrote it (its Host header), when no base URL is configured. */

@@ -2,6 +2,7 @@ import { spawn } from "node:child_process";
 import { createReadStream, createWriteStream } from "node:fs";
 import { pipeline } from "node:stream/promises";
 import { dbCredentials } from "@/db/config";
+import { readEnv } from "@/lib/env";
 
 /**
  * How the backup tools reach MariaDB: DB_BACKUP_USER / DB_BACKUP_PASSWORD when set, else the migrator account
@@ -20,11 +21,12 @@ export interface DumpTarget {
  * @example dumpTarget().database // "sievewright"
  */
 export function dumpTarget(env: NodeJS.ProcessEnv = process.env): DumpTarget {
+  const e = readEnv(env);
   return {
-    host: env.DB_HOST ?? "127.0.0.1",
-    port: Number(env.DB_PORT ?? 3307),
-    ...(env.DB_BACKUP_USER ? { user: env.DB_BACKUP_USER, password: env.DB_BACKUP_PASSWORD ?? "" } : dbCredentials("migrator", env)),
-    database: env.DB_NAME ?? "sievewright",
+    host: e.DB_HOST,
+    port: e.DB_PORT,
+    ...(e.DB_BACKUP_USER ? { user: e.DB_BACKUP_USER, password: e.DB_BACKUP_PASSWORD ?? "" } : dbCredentials("migrator", env)),
+    database: e.DB_NAME,
   };
 }
 

@@ -1,5 +1,6 @@
 import { after } from "next/server";
 import { cache } from "react";
+import { readEnv } from "@/lib/env";
 import { ServerTiming } from "./timing";
 
 /**
@@ -32,7 +33,7 @@ export function timedSync<T>(name: string, fn: () => T): T {
  * @example logPageTiming("/protocols/[id]/versions/[n]");
  */
 export function logPageTiming(route: string): void {
-  if (process.env.SERVER_TIMING_LOG !== "1") return;
+  if (!readEnv().SERVER_TIMING_LOG) return;
   const timing = requestTiming();
   after(() => console.log(`[server-timing] ${route} ${timing.header()}`));
 }

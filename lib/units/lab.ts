@@ -86,6 +86,7 @@ export const LAB_UNITS = {
   pct_wv: u("% w/v", "concentration", "% w/v", 1, "per cent weight per volume"),
   per_L: u("g or mL per L", "amountPerLitre", "g or mL per L", 1, "grams of a salt or millilitres of a stock per litre"),
   mL: u("mL", "volume", "m³", 1e-6, "millilitres"),
+  L: u("L", "volume", "m³", 1e-3, "litres"),
   minute: u("min", "time", "min", 1, "minutes"),
   uL_min: u("µL/min", "flowRate", "m³/s", 1e-9 / 60, "microlitres per minute"),
 } as const satisfies Record<string, LabUnit>;
@@ -112,7 +113,7 @@ export const UNITS_BY_QUANTITY: Record<Quantity, readonly UnitId[]> = {
   fieldStrength: ["kV_m", "V_m"],
   concentration: ["pct_wv"],
   amountPerLitre: ["per_L"],
-  volume: ["mL"],
+  volume: ["mL", "L"],
   time: ["minute"],
   flowRate: ["uL_min"],
   voltagePeakToPeak: ["Vpp"],

@@ -1,5 +1,6 @@
+import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { readEnv } from "@/lib/env";
+import { ENV_SCHEMA, readEnv } from "@/lib/env";
 
 describe("readEnv — every variable parsed once with its rule", () => {
   it("gives the documented defaults when nothing is set", () => {
@@ -70,5 +71,13 @@ describe("modules that read their settings through lib/env.ts", () => {
     expect(authConfig({}).AUTH_LOCK_MINUTES).toBe(15);
     expect(authConfig({ AUTH_LOCK_MINUTES: "20" }).AUTH_LOCK_MINUTES).toBe(20);
     expect(() => authConfig({ AUTH_LOCK_MINUTES: "0" })).toThrow(/AUTH_LOCK_MINUTES/);
+  });
+});
+
+describe("the README documents every variable lib/env.ts reads", () => {
+  it("names each ENV_SCHEMA variable in back-quotes", () => {
+    const readme = readFileSync("README.md", "utf8");
+    const missing = Object.keys(ENV_SCHEMA.shape).filter((name) => !readme.includes(`\`${name}\``));
+    expect(missing).toEqual([]);
   });
 });

@@ -65,8 +65,13 @@ describe("guardAuthRoute (no 500 from next-auth for a malformed callback URL)", 
     expect(new URL(bare.headers.get("location")!).origin).toBe("http://127.0.0.1:3000");
   });
 
-  it("skips an unparsable setting when choosing the origin", () => {
-    expect(appOrigin({ NEXTAUTH_URL: "not a url", APP_BASE_URL: "https://sw.lab.example/x" }, "http://localhost:3000")).toBe("https://sw.lab.example");
+  it("reads the base URLs through lib/env: NEXTAUTH_URL first, then APP_BASE_URL, else the request's origin", () => {
+    expect(appOrigin({ NEXTAUTH_URL: "https://a.lab.example/", APP_BASE_URL: "https://b.lab.example/x" }, "http://localhost:3000")).toBe("https://a.lab.example");
+    expect(appOrigin({ NEXTAUTH_URL: "", APP_BASE_URL: "https://sw.lab.example/x" }, "http://localhost:3000")).toBe("https://sw.lab.example");
     expect(appOrigin({ NEXTAUTH_URL: "", APP_BASE_URL: undefined }, "http://localhost:3000")).toBe("http://localhost:3000");
+  });
+
+  it("names an unparsable base URL as a configuration error (the server refuses to start with it: instrumentation.ts)", () => {
+    expect(() => appOrigin({ NEXTAUTH_URL: "not a url" }, "http://localhost:3000")).toThrow(/Configuration error: NEXTAUTH_URL/);
   });
 });

@@ -40,6 +40,8 @@ describe("lab units", () => {
     ["nS", 1, 1e-9],
     ["K", 298.15, 25], // 0 °C = 273.15 K
     ["percent", 10, 0.1],
+    ["L", 2, 2e-3], // 1 L = 1 dm³ = 1e-3 m³
+    ["mL", 250, 2.5e-4],
   ] as [UnitId, number, number][])("%s: %d → %d in SI (SI Brochure definitions)", (unit, lab, si) => {
     expect(tidy(toSI(unit, lab))).toBe(si);
     expect(tidy(fromSI(unit, si))).toBe(lab);
