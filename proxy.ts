@@ -15,7 +15,8 @@ const PUBLIC_PATH = /^\/(login|api|_next|favicon\.ico|fonts|robots\.txt)(\/|$)/;
  * instead of Next's 500, lib/http/action-body.ts), then the security headers (CSP with a fresh nonce, no
  * framing, nosniff, referrer and permissions policies) on every page, API answer, download and redirect. The nonce
  * and the policy also go on the request, where Next reads them to put the nonce on its own inline scripts. Its own
- * time goes out as `server-timing: proxy;dur=…` (ms); pages log theirs (lib/http/page-timing.ts).
+ * time goes out as `server-timing: proxy;dur=…` (ms) on pages, which log their own steps (lib/http/page-timing.ts); API
+ * routes send their own server-timing, which a header set here would replace.
  */
 export default async function proxy(req: NextRequest, event: NextFetchEvent): Promise<Response> {
   const started = performance.now();
@@ -36,7 +37,9 @@ export default async function proxy(req: NextRequest, event: NextFetchEvent): Pr
     res = NextResponse.next({ request: { headers: forwarded } });
   }
   for (const [name, value] of Object.entries(headers)) res.headers.set(name, value);
-  res.headers.append("server-timing", `proxy;dur=${(performance.now() - started).toFixed(1)}`);
+  // API routes send their own server-timing (lib/api/respond.ts, the bench-sheet route): a header set here would
+  // replace theirs, so only pages and redirects carry the proxy's share.
+  if (!path.startsWith("/api/")) res.headers.append("server-timing", `proxy;dur=${(performance.now() - started).toFixed(1)}`);
   return res;
 }
 
