@@ -4,19 +4,18 @@ import { db } from "@/db/knex";
 
 /**
  * Counts one request of `subject` in the window starting at `windowStart` (ms since the epoch) and returns the count
- * including this one. The upsert and the read run in one transaction, so the row stays locked between them and
- * concurrent requests each see their own count (exact across app instances).
+ * including this one. One statement: the upsert hands the new count back through LAST_INSERT_ID(expr), which MariaDB
+ * returns to this connection as the statement's insert id (MariaDB docs, LAST_INSERT_ID), so the row is locked only
+ * for that statement and concurrent requests each see their own count (exact across app instances).
  * @example const hits = await countHit("user:5", 1_767_605_400_000); // 1 for the first request of that minute
  */
 export async function countHit(subject: string, windowStart: number): Promise<number> {
-  return db.transaction(async (trx) => {
-    await trx.raw(
-      "INSERT INTO api_rate_windows (subject, window_start, hits) VALUES (?, ?, 1) ON DUPLICATE KEY UPDATE hits = hits + 1",
-      [subject, windowStart],
-    );
-    const row = await trx("api_rate_windows").where({ subject, window_start: windowStart }).first("hits");
-    return Number(row?.hits ?? 0);
-  });
+  const [result] = (await db.raw(
+    "INSERT INTO api_rate_windows (subject, window_start, hits) VALUES (?, ?, LAST_INSERT_ID(1)) " +
+      "ON DUPLICATE KEY UPDATE hits = LAST_INSERT_ID(hits + 1)",
+    [subject, windowStart],
+  )) as [{ insertId: number | string }];
+  return Number(result.insertId);
 }
 
 /**

@@ -118,7 +118,7 @@ describe("API rate limits", () => {
     expect(() => rateLimitFor(person(userA))).toThrow(/RATE_LIMIT_SESSION_PER_MINUTE: .*"lots"/);
   });
 
-  // The upsert and the read share one transaction (the row stays locked), so each request sees its own count:
+  // The upsert returns its own new count in the same statement (rate-windows-repo.ts), so each request sees its own count:
   // exactly the limit pass, the rest are refused, and every hit is counted.
   it("lets exactly the limit through a concurrent burst, and counts every hit (kept in the database, not in memory)", async () => {
     process.env.RATE_LIMIT_SESSION_PER_MINUTE = "5";
