@@ -74,13 +74,14 @@ function bufferSection(source: BenchSheetSource, options: BenchSheetOptions): Sh
   const scaled = scaleRecipe(recipe, options.volumeMl);
   const vol = `${options.volumeMl} mL`;
   const rows: string[][] = [];
-  if (recipe.sucrosePercentWV > 0) rows.push(["Sucrose (solid)", `${recipe.sucrosePercentWV} % w/v = ${recipe.sucrosePercentWV * 10} g/L`, formatGrams(scaled.sucroseG)]);
-  if (recipe.glucosePercentWV > 0) rows.push(["Glucose (solid)", `${recipe.glucosePercentWV} % w/v = ${recipe.glucosePercentWV * 10} g/L`, formatGrams(scaled.glucoseG)]);
+  const sugar = (percentWV: number) => `${formatPlain(percentWV, 4)} % w/v = ${formatPlain(percentWV * 10, 4)} g/L`;
+  if (recipe.sucrosePercentWV > 0) rows.push(["Sucrose (solid)", sugar(recipe.sucrosePercentWV), formatGrams(scaled.sucroseG)]);
+  if (recipe.glucosePercentWV > 0) rows.push(["Glucose (solid)", sugar(recipe.glucosePercentWV), formatGrams(scaled.glucoseG)]);
   recipe.additions.forEach((addition, i) => {
     const item = scaled.items[i];
     rows.push([
       `${item.label} (${item.kind === "solid" ? "solid" : "stock solution"})`,
-      item.kind === "solid" ? `${addition.perLitre} g/L` : `${addition.perLitre} mL/L`,
+      `${formatPlain(addition.perLitre, 4)} ${item.kind === "solid" ? "g/L" : "mL/L"}`,
       item.kind === "solid" ? formatGrams(item.amount) : formatMillilitres(item.amount),
     ]);
   });

@@ -146,3 +146,37 @@ describe("evaluation height inside the channel", () => {
     expect(deviceStepSchema.safeParse({ ...defaultDevice(), evalHeight: 40, channelHeight: 50 }).success).toBe(true);
   });
 });
+
+describe("a buffer given as a conductivity range", () => {
+  it("freezes a recipe made at the chosen window's conductivity, and the bench sheet prints it", async () => {
+    const { buildBenchSheet } = await import("@/lib/bench-sheet/layout");
+    const { fixtureSource } = await import("@/tests/support/bench-fixture");
+    const { conductivityAt25 } = await import("@/lib/units/conductivity-temperature");
+    const { evaluateBuffer } = await import("@/lib/dielectric");
+    const ready = readyInputs({ ...inputs(), buffer: { ...defaultBuffer(), mode: "range", rangeLow: 2, rangeHigh: 100 } });
+    if (!ready.ok) throw new Error(ready.message);
+    const request = toWindowsRequest(ready);
+    const result = planWindows(request);
+    const window = result.windows[0];
+    if (!window) throw new Error("the range plan found no window");
+    const content = buildContent({ ...ready, request, result, window, save: defaultSave("Test"), flowRateUlPerMin: null });
+    const sigma25 = conductivityAt25(window.operatingPoint.conductivity, ready.device.operatingTemperatureC);
+    const recipe = content.buffer.recipe!;
+    expect(recipe).not.toBeNull();
+    expect(recipe.conductivity25).toBeCloseTo(sigma25, 9);
+    // Forward check with the engine's buffer model: the frozen per-litre amounts give back the window's σ25.
+    const forward = evaluateBuffer({
+      volumeL: 1, temperatureC: 25, sucrosePercentWV: recipe.sucrosePercentWV, glucosePercentWV: recipe.glucosePercentWV,
+      additions: [{ kind: "PBS1x", volumeL: recipe.additions[0].perLitre / 1000 }],
+    });
+    expect(forward.conductivity25).toBeCloseTo(sigma25, 9);
+    const source = fixtureSource("approved");
+    source.content = { ...source.content, buffer: content.buffer };
+    const sheet = JSON.stringify(buildBenchSheet(source, { volumeMl: 250, paper: "a4", printedAt: new Date("2026-12-02T09:30:00Z") }).sections.find((s) => s.id === "buffer"));
+    // The per-litre amount to 4 significant figures through lib/units (it printed the raw float before), scaled to 250 mL.
+    const perLitre = recipe.additions[0].perLitre;
+    expect(sheet).toContain(`"${recipe.additions[0].label} (stock solution)","${Number(perLitre.toPrecision(4))} mL/L"`);
+    expect(sheet).not.toMatch(/\d\.\d{6,}/);
+    expect(sheet).toContain("For 250 mL");
+  });
+});
