@@ -3,7 +3,7 @@
  * compiled before the first real population arrives: a user's first fit after the server starts then takes about as
  * long as every later one. Pure (no I/O).
  */
-import { compileParticle, EPSILON_0, effectivePermittivityInto, realCM, type Particle } from "@/lib/dielectric";
+import { evaluateSpectra, type Particle } from "@/lib/dielectric";
 import { fitOneCell, type CellInput, type CellResult, type CommonSetup } from "@/lib/fitting";
 
 const MEDIUM = { conductivity: 0.01, permittivity: 78.3 };
@@ -18,18 +18,12 @@ export const WARM_UP_SETUP: CommonSetup = { kind: "re-k", medium: MEDIUM, partic
  * @example warmUpCells(2).length // 2
  */
 export function warmUpCells(n: number): CellInput[] {
-  const out = new Float64Array(2);
+  const frequencies = Array.from({ length: 20 }, (_, k) => 5e3 * 1e4 ** (k / 19));
   return Array.from({ length: n }, (_, i) => {
     const radius = 5e-6 * (1 + 0.03 * Math.sin(i + 1));
     const cell: Particle = { ...START, id: `w${i}`, radius, core: { permittivity: 60, conductivity: 0.4 * (1 + 0.05 * Math.cos(i)) }, shells: [{ thickness: 7e-9, capacitance: 0.012 * (1 + 0.05 * Math.sin(2 * i)), conductance: 300 }] };
-    const compiled = compileParticle(cell);
-    const points = Array.from({ length: 20 }, (_, k) => {
-      const frequency = 5e3 * 1e4 ** (k / 19);
-      const omega = 2 * Math.PI * frequency;
-      effectivePermittivityInto(compiled, omega, out);
-      return { frequency, value: realCM(out[0], out[1], MEDIUM.permittivity, -MEDIUM.conductivity / (EPSILON_0 * omega)) };
-    });
-    return { id: `warm-up-${i + 1}`, radius, points };
+    const re = evaluateSpectra({ medium: MEDIUM, frequencies, particles: [cell] }).particles[0].re;
+    return { id: `warm-up-${i + 1}`, radius, points: frequencies.map((frequency, k) => ({ frequency, value: re[k] })) };
   });
 }
 

@@ -1,7 +1,7 @@
 import { BLOCKER_LABELS, type Blocker, type OperatingWindow, type PlannerWarning, type SensitivityResult, type WindowsResult } from "@/lib/planner";
 import type { ProtocolWarning } from "@/lib/protocols/content";
 import { sig } from "@/lib/units/number";
-import { formatConductivity, formatFrequency } from "@/lib/units/format";
+import { formatConductivity, formatFrequency, formatPercent } from "@/lib/units/format";
 
 /**
  * Signed separation for the heat map: recovery × purity at each point, positive where the target's mean cell has
@@ -161,5 +161,5 @@ export function mapReadout(p: MapPoint): string {
     ? `target's mean cell Re[K] ${sig(p.reK, 2)} (${p.reK >= 0 ? "positive" : "negative"} DEP)`
     : `target moves by ${p.separation >= 0 ? "positive" : "negative"} DEP`;
   const limits = p.feasible ? "meets every limit" : p.blockers ? `refused by: ${p.blockers}` : "fails a limit or the separation threshold";
-  return `${formatFrequency(p.frequency)}, ${formatConductivity(p.conductivity, { meter: true })}: recovery ${sig(p.recovery * 100, 3)} %, purity ${sig(p.purity * 100, 3)} %, ${dep}; ${limits}.`;
+  return `${formatFrequency(p.frequency)}, ${formatConductivity(p.conductivity, { meter: true })}: recovery ${formatPercent(p.recovery)}, purity ${formatPercent(p.purity)}, ${dep}; ${limits}.`;
 }
