@@ -6,13 +6,28 @@ import { defaultLimits, limitsStepSchema } from "@/lib/wizard/limits-form";
 import { readyInputs, toWindowsRequest } from "@/lib/wizard/request";
 import { buildContent } from "@/lib/wizard/to-protocol";
 import { defaultSave } from "@/lib/wizard/save-form";
-import { conductivityAtTemperature } from "@/lib/units/conductivity-temperature";
+import { conductivityAt25, conductivityAtTemperature } from "@/lib/units/conductivity-temperature";
+import { evaluateBuffer } from "@/lib/dielectric";
+import { buildBenchSheet } from "@/lib/bench-sheet/layout";
+import { fixtureSource } from "@/tests/support/bench-fixture";
 import { STARTING_POINTS } from "@/lib/wizard/starting-points";
 import { completedSteps } from "@/lib/wizard/progress";
 
 const live = STARTING_POINTS.find((s) => s.key === "mammalianViable")!.values;
 const dead = STARTING_POINTS.find((s) => s.key === "mammalianCompromised")!.values;
 const inputs = () => ({ populations: { target: live, other: dead }, buffer: defaultBuffer(), device: defaultDevice(), limits: defaultLimits() });
+
+/** Plans the steps and freezes the best window as protocol content, as the wizard's save step does. */
+function planAndFreeze(steps: ReturnType<typeof inputs>) {
+  const ready = readyInputs(steps);
+  if (!ready.ok) throw new Error(ready.message);
+  const request = toWindowsRequest(ready);
+  const result = planWindows(request);
+  const window = result.windows[0];
+  if (!window) throw new Error("the plan found no window");
+  const content = buildContent({ ...ready, request, result, window, save: defaultSave("Test"), flowRateUlPerMin: null });
+  return { ready, request, result, window, content };
+}
 
 describe("buffer step", () => {
   it("scales per-litre additions to the batch for the engine's recipe calculator", () => {
@@ -58,13 +73,7 @@ describe("device and limits steps", () => {
 
 describe("planner request from the wizard's steps", () => {
   it("the protocol content carries the request's own SI limits, mix and geometry (one conversion of the steps)", () => {
-    const ready = readyInputs(inputs());
-    if (!ready.ok) throw new Error(ready.message);
-    const request = toWindowsRequest(ready);
-    const result = planWindows(request);
-    const window = result.windows[0];
-    if (!window) throw new Error("the default plan found no window");
-    const content = buildContent({ ...ready, request, result, window, save: defaultSave("Test"), flowRateUlPerMin: null });
+    const { request, content } = planAndFreeze(inputs());
     const c = request.constraints!;
     expect(content.limits).toEqual({
       maxTemperatureRiseK: c.maxTemperatureRise, maxElectrothermalRatio: c.maxElectrothermalRatio, maxTransmembranePotentialV: c.maxTransmembranePotential,
@@ -148,18 +157,8 @@ describe("evaluation height inside the channel", () => {
 });
 
 describe("a buffer given as a conductivity range", () => {
-  it("freezes a recipe made at the chosen window's conductivity, and the bench sheet prints it", async () => {
-    const { buildBenchSheet } = await import("@/lib/bench-sheet/layout");
-    const { fixtureSource } = await import("@/tests/support/bench-fixture");
-    const { conductivityAt25 } = await import("@/lib/units/conductivity-temperature");
-    const { evaluateBuffer } = await import("@/lib/dielectric");
-    const ready = readyInputs({ ...inputs(), buffer: { ...defaultBuffer(), mode: "range", rangeLow: 2, rangeHigh: 100 } });
-    if (!ready.ok) throw new Error(ready.message);
-    const request = toWindowsRequest(ready);
-    const result = planWindows(request);
-    const window = result.windows[0];
-    if (!window) throw new Error("the range plan found no window");
-    const content = buildContent({ ...ready, request, result, window, save: defaultSave("Test"), flowRateUlPerMin: null });
+  it("freezes a recipe made at the chosen window's conductivity, and the bench sheet prints it", () => {
+    const { ready, window, content } = planAndFreeze({ ...inputs(), buffer: { ...defaultBuffer(), mode: "range", rangeLow: 2, rangeHigh: 100 } });
     const sigma25 = conductivityAt25(window.operatingPoint.conductivity, ready.device.operatingTemperatureC);
     const recipe = content.buffer.recipe!;
     expect(recipe).not.toBeNull();
