@@ -1,5 +1,5 @@
 import { evaluateBuffer, SALTS, STOCKS, type BufferAddition, type BufferResult, type SaltKind, type StockKind } from "@/lib/dielectric";
-import { toSI } from "@/lib/units/lab";
+import { fromSI, toSI } from "@/lib/units/lab";
 import { tidy } from "@/lib/units/number";
 import { recipeFieldIssues, type RecipeFieldIssue } from "./recipe-errors";
 
@@ -63,7 +63,7 @@ export const LITRE_AT_25: RecipeBatch = { volumeL: 1, temperatureC: 25 };
 export function toEngineRecipe(r: RecipeValues, batch: RecipeBatch = LITRE_AT_25) {
   const { volumeL } = batch;
   const additions: BufferAddition[] = r.additions.map((a) =>
-    isSalt(a.kind) ? { kind: a.kind, grams: tidy(a.perLitre * volumeL, 12) } : { kind: a.kind as StockKind, volumeL: tidy(toSI("mL", a.perLitre) * 1000 * volumeL, 12) },
+    isSalt(a.kind) ? { kind: a.kind, grams: tidy(a.perLitre * volumeL, 12) } : { kind: a.kind as StockKind, volumeL: tidy(fromSI("L", toSI("mL", a.perLitre)) * volumeL, 12) },
   );
   return { volumeL, temperatureC: batch.temperatureC, sucrosePercentWV: r.sucrosePercentWV, glucosePercentWV: r.glucosePercentWV, additions };
 }
