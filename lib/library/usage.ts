@@ -3,7 +3,6 @@ import { versionsReferring, type ItemReference } from "@/lib/protocols/repo";
 import { isLocking } from "@/lib/protocols/states";
 import { kindInfo, type LibraryKind } from "./kinds";
 
-
 /** A protocol version that refers to an item version. */
 export type ProtocolUse = ItemReference;
 
