@@ -4,7 +4,7 @@ set -uo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 
-ensure_apt mariadb-server mariadb-client chromium poppler-utils
+ensure_apt mariadb-server mariadb-client chromium poppler-utils wrk
 ensure_node_modules
 
 RUN_DIR="$ROOT/.data/test-$$"
