@@ -12,6 +12,8 @@ import { join } from "node:path";
 export interface WrkFigures {
   responses: number;
   seconds: number;
+  /** Mean latency, ms. */
+  mean: number;
   p50: number;
   p95: number;
   p99: number;
@@ -71,8 +73,8 @@ export function wrkScript(req: WrkRequest, bodyFile: string | null): string {
   lines.push(
     "done = function(s, latency, requests)",
     '  local e = s.errors.connect + s.errors.read + s.errors.write + s.errors.timeout',
-    '  io.write(string.format("WRKJSON {\\"responses\\":%d,\\"us\\":%d,\\"p50\\":%d,\\"p95\\":%d,\\"p99\\":%d,\\"bad\\":%d,\\"errors\\":%d}\\n",',
-    "    s.requests, s.duration, latency:percentile(50), latency:percentile(95), latency:percentile(99), s.errors.status, e))",
+    '  io.write(string.format("WRKJSON {\\"responses\\":%d,\\"us\\":%d,\\"mean\\":%d,\\"p50\\":%d,\\"p95\\":%d,\\"p99\\":%d,\\"bad\\":%d,\\"errors\\":%d}\\n",',
+    "    s.requests, s.duration, latency.mean, latency:percentile(50), latency:percentile(95), latency:percentile(99), s.errors.status, e))",
     "end",
   );
   return lines.join("\n") + "\n";
@@ -117,8 +119,8 @@ export function runWrk(req: WrkRequest): Promise<WrkFigures> {
       rmSync(dir, { recursive: true, force: true });
       const line = out.split("\n").find((l) => l.startsWith("WRKJSON "));
       if (code !== 0 || !line) return reject(new Error(`wrk exited with ${code}: ${(err || out).trim().slice(0, 500)}`));
-      const j = JSON.parse(line.slice(8)) as { responses: number; us: number; p50: number; p95: number; p99: number; bad: number; errors: number };
-      resolve({ responses: j.responses, seconds: j.us / 1e6, p50: j.p50 / 1000, p95: j.p95 / 1000, p99: j.p99 / 1000, badStatus: j.bad, errors: j.errors, clientCpuMs: childrenCpuMs(err) });
+      const j = JSON.parse(line.slice(8)) as { responses: number; us: number; mean: number; p50: number; p95: number; p99: number; bad: number; errors: number };
+      resolve({ responses: j.responses, seconds: j.us / 1e6, mean: j.mean / 1000, p50: j.p50 / 1000, p95: j.p95 / 1000, p99: j.p99 / 1000, badStatus: j.bad, errors: j.errors, clientCpuMs: childrenCpuMs(err) });
     });
   });
 }
