@@ -1,7 +1,7 @@
 import type { Role } from "@/lib/auth/roles";
 import type { Protocol, ProtocolVersion, Signature } from "@/lib/protocols/mapper";
 import type { Integrity } from "@/lib/protocols/integrity";
-import { getVersionView, readVersionById } from "@/lib/protocols/queries";
+import { readVersionById, readVersionByNumber } from "@/lib/protocols/queries";
 import type { BenchSheetSource } from "./types";
 
 type Viewer = { id: number; role: Role };
@@ -23,7 +23,7 @@ function toSource(read: { protocol: Protocol; version: ProtocolVersion; signatur
  * @example const source = await loadSheetSourceByNumber(user, 3, 2);
  */
 export async function loadSheetSourceByNumber(viewer: Viewer, protocolId: number, number: number): Promise<BenchSheetSource> {
-  return toSource(await getVersionView(viewer, protocolId, number));
+  return toSource(await readVersionByNumber(viewer, protocolId, number));
 }
 
 /**

@@ -249,11 +249,35 @@ export async function listCurrentApproved(): Promise<{ protocol: Protocol; versi
  * A version by id for another feature (bench runs): visible to the viewer, with signatures and the hash check.
  * @example const { version, integrity } = await readVersionById(tomas, 12); // NotFoundError unless approved for a technician
  */
-export async function readVersionById(viewer: Viewer, versionId: number): Promise<{ protocol: Protocol; version: ProtocolVersion; signatures: Signature[]; integrity: Integrity }> {
+export async function readVersionById(viewer: Viewer, versionId: number): Promise<VersionRead> {
   const version = await repo.findVersion(db, versionId);
   if (!version) throw new NotFoundError(`No protocol version with id ${versionId}.`);
   assertVisible(viewer, version.state);
   const protocol = (await repo.findProtocol(db, version.protocolId))!;
+  return withSignatures(protocol, version);
+}
+
+/**
+ * The same by protocol id and version number, in three statements (protocol, version, signatures), for what needs
+ * only the version and its signatures (bench sheets), not the version page's comments, editors and history.
+ * @example const { version, integrity } = await readVersionByNumber(user, 3, 2);
+ */
+export async function readVersionByNumber(viewer: Viewer, protocolId: number, number: number): Promise<VersionRead> {
+  const [protocol, version] = await Promise.all([repo.findProtocol(db, protocolId), repo.findVersionByNumber(db, protocolId, number)]);
+  if (!protocol || !version) throw new NotFoundError(`No version ${number} of protocol ${protocolId}.`);
+  assertVisible(viewer, version.state);
+  return withSignatures(protocol, version);
+}
+
+/** A version, its protocol and signatures, and the hash check over them. */
+export interface VersionRead {
+  protocol: Protocol;
+  version: ProtocolVersion;
+  signatures: Signature[];
+  integrity: Integrity;
+}
+
+async function withSignatures(protocol: Protocol, version: ProtocolVersion): Promise<VersionRead> {
   const signatures = await repo.listSignatures(db, [version.id]);
   return { protocol, version, signatures, integrity: checkIntegrity(version.rawContent, version.contentHash, signatures) };
 }

@@ -10,7 +10,7 @@ import { smtpTransport } from "@/lib/mail/transport";
 import { subjectOf } from "@/lib/format/mime";
 import { contentHash } from "@/lib/protocols/hash";
 import { parseJsonColumn } from "@/lib/protocols/mapper";
-import { getVersionView, listCurrentApproved, listProtocols, readVersionById, reviewQueue } from "@/lib/protocols/queries";
+import { getVersionView, listCurrentApproved, listProtocols, readVersionById, readVersionByNumber, reviewQueue } from "@/lib/protocols/queries";
 import { approveVersion, retireVersion, returnVersion } from "@/lib/protocols/review";
 import { createProtocol, newVersion, submitVersion, updateDraft, updateDraftDetails, type Actor } from "@/lib/protocols/service";
 import { createUser, setUserRole } from "@/lib/users/service";
@@ -180,6 +180,22 @@ describe("protocol versions against MariaDB", () => {
     const retired = await retireVersion(quinn, { versionId: v1.id, lockVersion: v1.lockVersion, reason: "Chip model discontinued." });
     expect(retired.state).toBe("retired");
     await expect(readVersionById(tomas, v1.id)).rejects.toBeInstanceOf(NotFoundError);
+  });
+
+  it("reads a version by number with the same protocol, signatures, hash check and visibility as the version page", async () => {
+    const { protocol } = await approvedProtocol("Lean read", dana, quinn);
+    await newVersion(dana, protocol.id);
+    const view = await getVersionView(sam, protocol.id, 1);
+    const lean = await readVersionByNumber(sam, protocol.id, 1);
+    expect(lean.protocol).toEqual(view.protocol);
+    expect(lean.version).toEqual(view.version);
+    expect(lean.signatures).toEqual(view.signatures);
+    expect(lean.signatures.length).toBeGreaterThan(0);
+    expect(lean.integrity).toEqual(view.integrity);
+    expect((await readVersionByNumber(tomas, protocol.id, 1)).version.state).toBe("approved");
+    await expect(readVersionByNumber(tomas, protocol.id, 2)).rejects.toBeInstanceOf(NotFoundError);
+    await expect(readVersionByNumber(ari, protocol.id, 1)).rejects.toBeInstanceOf(ForbiddenError);
+    await expect(readVersionByNumber(sam, protocol.id, 99)).rejects.toThrow(`No version 99 of protocol ${protocol.id}.`);
   });
 
   it("filters the protocol list by state, population and author", async () => {
