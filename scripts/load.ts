@@ -72,8 +72,8 @@ interface Figures {
 }
 
 /** A target "p95 ≤ ms". */
-function atMost(ms: number, note = ""): Pick<Figures, "target" | "maxP95"> {
-  return { target: `p95 ≤ ${ms} ms${note}`, maxP95: ms };
+function atMost(ms: number): Pick<Figures, "target" | "maxP95"> {
+  return { target: `p95 ≤ ${ms} ms`, maxP95: ms };
 }
 
 /** "yes" when a row meets its numeric target, "no" when it misses it, "—" when it has none. */
@@ -277,9 +277,11 @@ async function main(): Promise<void> {
       const cheap = { url: `${BASE}/api/auth/session`, headers: { cookie } };
       const draftUrl = `${BASE}/api/v1/protocols/${other.pid}/versions/${other.n}/bench-sheet?paper=a4`;
       const clientOfPdfs = WRK ? "wrk, a separate process" : "autocannon, in the measuring process";
+      const pdfLoad = () => background(draftUrl, { cookie }, 4);
+      const duringPdfs = "the same while 4 clients fetch drafts' PDFs (drawn on demand)";
       // Closed loop at CONNECTIONS connections, alone and while 4 other clients fetch drafts' PDFs.
-      const closed = await alternate("cheap request", "GET /api/auth/session", "PDFs", (label) => hammer(label, "", cheap), () => background(draftUrl, { cookie }, 4));
-      results.push(closed.alone, { ...closed.during, what: "the same while 4 clients fetch drafts' PDFs (drawn on demand)", ...within20(closed.alone) });
+      const closed = await alternate("cheap request", "GET /api/auth/session", "PDFs", (label) => hammer(label, "", cheap), pdfLoad);
+      results.push(closed.alone, { ...closed.during, what: duringPdfs, ...within20(closed.alone) });
       notes.push(`Cheap request, closed loop, runs alternating alone / during PDFs: ${closed.detail}; 4 other clients (${clientOfPdfs}) received ${closed.loads.join(", ")} draft PDFs.`);
       // The same request arriving spread out at about CHEAP_RATE per second: the closed-loop runs keep both cores busy
       // by themselves, so any other work lengthens their queue; a paced run shows whether drawing PDFs holds up a
@@ -288,8 +290,8 @@ async function main(): Promise<void> {
       const thinkMs = (CONNECTIONS * 1000) / CHEAP_RATE;
       const pacedRun = (label: string) => (WRK ? hammerWrk(label, "", { ...cheap, thinkMs }) : hammer(label, "", { ...cheap, overallRate: CHEAP_RATE }));
       const how = WRK ? `wrk, ${CONNECTIONS} connections each waiting a random time (exponential, mean ${thinkMs.toFixed(0)} ms) between requests` : `autocannon overallRate ${CHEAP_RATE}/s, a burst at the start of each second`;
-      const paced = await alternate(`cheap request ~${CHEAP_RATE}/s`, `GET /api/auth/session, about ${CHEAP_RATE} requests/s`, "PDFs", pacedRun, () => background(draftUrl, { cookie }, 4));
-      results.push(paced.alone, { ...paced.during, what: "the same while 4 clients fetch drafts' PDFs (drawn on demand)", ...within20(paced.alone) });
+      const paced = await alternate(`cheap request ~${CHEAP_RATE}/s`, `GET /api/auth/session, about ${CHEAP_RATE} requests/s`, "PDFs", pacedRun, pdfLoad);
+      results.push(paced.alone, { ...paced.during, what: duringPdfs, ...within20(paced.alone) });
       notes.push(`Paced cheap request (${how}), runs alternating alone / during PDFs: ${paced.detail}; 4 other clients (${clientOfPdfs}) received ${paced.loads.map((n) => `${n} (${(n / SECONDS).toFixed(1)}/s)`).join(", ")} draft PDFs.`);
       // Control: the same paced request while do-nothing busy loops run at the lowest scheduling class (SCHED_IDLE),
       // one per core. What they add to the p95 is what any CPU-bound background work costs on this machine however low

@@ -245,6 +245,14 @@ export async function listCurrentApproved(): Promise<{ protocol: Protocol; versi
   });
 }
 
+/** A version, its protocol and signatures, and the hash check over them. */
+export interface VersionRead {
+  protocol: Protocol;
+  version: ProtocolVersion;
+  signatures: Signature[];
+  integrity: Integrity;
+}
+
 /**
  * A version by id for another feature (bench runs): visible to the viewer, with signatures and the hash check.
  * @example const { version, integrity } = await readVersionById(tomas, 12); // NotFoundError unless approved for a technician
@@ -267,14 +275,6 @@ export async function readVersionByNumber(viewer: Viewer, protocolId: number, nu
   if (!protocol || !version) throw new NotFoundError(`No version ${number} of protocol ${protocolId}.`);
   assertVisible(viewer, version.state);
   return withSignatures(protocol, version);
-}
-
-/** A version, its protocol and signatures, and the hash check over them. */
-export interface VersionRead {
-  protocol: Protocol;
-  version: ProtocolVersion;
-  signatures: Signature[];
-  integrity: Integrity;
 }
 
 async function withSignatures(protocol: Protocol, version: ProtocolVersion): Promise<VersionRead> {
